@@ -1,0 +1,190 @@
+package segment
+
+import (
+	"math"
+	"math/rand/v2"
+)
+
+// PitmanYor holds the parameters of one level of a hierarchical
+// Pitman-Yor process: discount d in [0,1) and concentration a > -d.
+// With d = 0 the level is a Dirichlet process.
+type PitmanYor struct {
+	Discount, Concentration float64
+}
+
+// restaurants is one level of a hierarchy: a Chinese restaurant for every
+// context, all with the same parameters, seating customers of word types
+// (dishes). The predictive probability of dish w in context u is
+// (Teh 2006, eq. 4 in the Chinese-restaurant form):
+//
+//	P(w | u) = (c_uw - d t_uw + (a + d t_u) P_parent(w)) / (c_u + a)
+//
+// where c counts customers and t tables.
+type restaurants struct {
+	params    *PitmanYor
+	index     map[uint64]int32 // (context, dish) -> seats
+	seats     []dishSeating
+	customers []int32 // by context
+	tables    []int32 // by context
+}
+
+func newRestaurants(p *PitmanYor) *restaurants {
+	return &restaurants{params: p, index: make(map[uint64]int32)}
+}
+
+func seatKey(ctx int32, w WordType) uint64 { return uint64(uint32(ctx))<<32 | uint64(uint32(w)) }
+
+// seating returns the seating of dish w in context ctx, creating it if
+// create is set; nil if absent and not created.
+func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
+	k := seatKey(ctx, w)
+	if i, ok := r.index[k]; ok {
+		return &r.seats[i]
+	}
+	if !create {
+		return nil
+	}
+	for int(ctx) >= len(r.customers) {
+		r.customers = append(r.customers, 0)
+		r.tables = append(r.tables, 0)
+	}
+	r.index[k] = int32(len(r.seats))
+	r.seats = append(r.seats, dishSeating{})
+	return &r.seats[len(r.seats)-1]
+}
+
+func (r *restaurants) totals(ctx int32) (customers, tables float64) {
+	if int(ctx) >= len(r.customers) {
+		return 0, 0
+	}
+	return float64(r.customers[ctx]), float64(r.tables[ctx])
+}
+
+// logPredictive returns log P(w | ctx) given log P_parent(w).
+func (r *restaurants) logPredictive(ctx int32, w WordType, logParent float64) float64 {
+	d, a := r.params.Discount, r.params.Concentration
+	c, t := r.totals(ctx)
+	lNew := math.Log(a+d*t) + logParent
+	if ds := r.seating(ctx, w, false); ds != nil && ds.customers > 0 {
+		lNew = logAddExp(math.Log(float64(ds.customers)-d*float64(ds.tables)), lNew)
+	}
+	return lNew - math.Log(c+a)
+}
+
+// add seats a customer of dish w in context ctx. It returns whether the
+// customer opened a new table (so the parent gets a customer too). The
+// choice is recorded in j.
+func (r *restaurants) add(ctx int32, w WordType, logParent float64, rng *rand.Rand, j *journal) bool {
+	d, a := r.params.Discount, r.params.Concentration
+	ds := r.seating(ctx, w, true)
+	_, t := r.totals(ctx)
+	join := float64(ds.customers) - d*float64(ds.tables)
+	var size int32
+	if join > 0 {
+		pNew := (a + d*t) * math.Exp(logParent)
+		u := rng.Float64() * (join + pNew)
+		if u < join {
+			size = ds.pickJoin(d, u)
+		}
+	}
+	r.seatAt(ctx, ds, size)
+	j.push(r, ctx, w, size, true)
+	return size == 0
+}
+
+// remove takes away one customer of dish w in context ctx, chosen
+// uniformly. It returns whether a table closed (so the parent loses a
+// customer too).
+func (r *restaurants) remove(ctx int32, w WordType, rng *rand.Rand, j *journal) bool {
+	ds := r.seating(ctx, w, false)
+	if ds == nil || ds.customers == 0 {
+		panic("segment: remove of an absent customer")
+	}
+	size := ds.pickLeave(rng)
+	r.unseatAt(ctx, ds, size)
+	j.push(r, ctx, w, size, false)
+	return size == 1
+}
+
+// seatAt adds a customer to a table of the given size (0: a new table).
+func (r *restaurants) seatAt(ctx int32, ds *dishSeating, size int32) {
+	ds.addToSize(size)
+	r.customers[ctx]++
+	if size == 0 {
+		r.tables[ctx]++
+	}
+}
+
+// unseatAt removes a customer from a table of the given size.
+func (r *restaurants) unseatAt(ctx int32, ds *dishSeating, size int32) {
+	ds.removeFromSize(size)
+	r.customers[ctx]--
+	if size == 1 {
+		r.tables[ctx]--
+	}
+}
+
+// journalEntry records one seating change so that it can be undone.
+type journalEntry struct {
+	r    *restaurants
+	ctx  int32
+	w    WordType
+	size int32 // table size before the change (0: new table)
+	add  bool
+}
+
+// journal is a log of seating changes, undone in reverse order to restore
+// a seating exactly after a rejected proposal.
+type journal struct{ entries []journalEntry }
+
+func (j *journal) push(r *restaurants, ctx int32, w WordType, size int32, add bool) {
+	if j != nil {
+		j.entries = append(j.entries, journalEntry{r, ctx, w, size, add})
+	}
+}
+
+func (j *journal) reset() { j.entries = j.entries[:0] }
+
+// undo reverts every change in j, newest first, and empties it.
+func (j *journal) undo() {
+	for k := len(j.entries) - 1; k >= 0; k-- {
+		e := j.entries[k]
+		ds := e.r.seating(e.ctx, e.w, false)
+		if e.add {
+			e.r.unseatAt(e.ctx, ds, e.size+1)
+		} else {
+			e.r.seatAt(e.ctx, ds, e.size-1)
+		}
+	}
+	j.reset()
+}
+
+// logSeatingProb returns the log probability of the level's seating
+// arrangement given its dishes' parent draws, summed over contexts
+// (Teh 2006, eq. 11 without the parent term):
+//
+//	prod_u [(a+d)_{t_u-1, d} / (a+1)_{c_u-1}] * prod_{uw} prod_tables (1-d)_{size-1}
+//
+// with (x)_{n,d} = x(x+d)...(x+(n-1)d). Used for hyperparameter inference.
+func (r *restaurants) logSeatingProb(d, a float64) float64 {
+	lp := 0.0
+	for ctx := range r.customers {
+		c, t := float64(r.customers[ctx]), float64(r.tables[ctx])
+		if c == 0 {
+			continue
+		}
+		for k := 1.0; k < t; k++ {
+			lp += math.Log(a + d*k)
+		}
+		lp -= lgamma(a+c) - lgamma(a+1)
+	}
+	if d > 0 {
+		lg1d := lgamma(1 - d)
+		for i := range r.seats {
+			for _, sc := range r.seats[i].hist {
+				lp += float64(sc.Tables) * (lgamma(float64(sc.Size)-d) - lg1d)
+			}
+		}
+	}
+	return lp
+}
