@@ -1,5 +1,69 @@
 package main
 
-import "github.com/urfave/cli/v2"
+import (
+	"errors"
+	"fmt"
 
-func scoreCommand() *cli.Command { return &cli.Command{Name: "score", Usage: "(coming)"} }
+	"github.com/juncture-project/juncture/segment/score"
+	"github.com/urfave/cli/v2"
+)
+
+func scoreCommand() *cli.Command {
+	return &cli.Command{
+		Name:      "score",
+		Usage:     "compare a segmentation with a reference segmentation",
+		ArgsUsage: "PREDICTED",
+		Description: "Both files hold segmented lines: one utterance per line, words separated by\n" +
+			"single spaces. Line for line they must spell the same text once spaces are\n" +
+			"removed. PREDICTED may be - for standard input, so\n\n" +
+			"   juncture learn in.txt | juncture score --reference gold.txt -\n\n" +
+			"works. Reports boundary, token and lexicon precision, recall and F, plus\n" +
+			"WindowDiff and Pk, as a table or, with --json, as one JSON object.",
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "reference", Aliases: []string{"r"}, Required: true, Usage: "the reference (gold) segmentation `FILE`"},
+			&cli.BoolFlag{Name: "json", Usage: "print one JSON object instead of a table"},
+		},
+		Action: runScore,
+	}
+}
+
+func runScore(ctx *cli.Context) error {
+	if ctx.NArg() != 1 {
+		return fmt.Errorf("want one PREDICTED file (or -), got %d arguments", ctx.NArg())
+	}
+	ref, refLines, refName, err := readSegmentedFile(ctx.String("reference"))
+	if err != nil {
+		return err
+	}
+	pred, predLines, predName, err := readSegmentedFile(ctx.Args().First())
+	if err != nil {
+		return err
+	}
+	if len(ref) != len(pred) {
+		return fmt.Errorf("%s has %d utterances but %s has %d", refName, len(ref), predName, len(pred))
+	}
+	s, err := score.Compare(ref, pred)
+	if err != nil {
+		var le *score.LineError
+		if errors.As(err, &le) && le.Line >= 1 && le.Line <= len(ref) {
+			i := le.Line - 1
+			return fmt.Errorf("%s:%d and %s:%d: %w", refName, refLines[i], predName, predLines[i], le.Err)
+		}
+		return err
+	}
+	if ctx.Bool("json") {
+		_, err = ctx.App.Writer.Write(s.JSON())
+		return err
+	}
+	return s.WriteTable(ctx.App.Writer)
+}
+
+func readSegmentedFile(name string) ([][]string, []int, string, error) {
+	r, display, err := openInput(name)
+	if err != nil {
+		return nil, nil, name, err
+	}
+	defer r.Close()
+	words, lines, err := score.ReadSegmented(r, display)
+	return words, lines, display, err
+}

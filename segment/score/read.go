@@ -1,0 +1,136 @@
+package score
+
+import (
+	"bufio"
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"unicode/utf8"
+
+	"golang.org/x/text/unicode/norm"
+)
+
+// MaxLineBytes is the longest line ReadSegmented accepts, in bytes.
+const MaxLineBytes = 1 << 20
+
+// Errors reported by ReadSegmented, wrapped in a *ParseError.
+var (
+	ErrInvalidUTF8 = errors.New("invalid UTF-8")
+	ErrNUL         = errors.New("NUL character")
+	ErrLineTooLong = fmt.Errorf("line longer than %d bytes", MaxLineBytes)
+)
+
+// ParseError is an error at a place in a named segmented file.
+type ParseError struct {
+	Name string
+	Line int // 1-based
+	// Column is 1-based and counts characters (runes) of the line as read;
+	// 0 when the error concerns the whole line.
+	Column int
+	Err    error
+}
+
+func (e *ParseError) Error() string {
+	if e.Column == 0 {
+		return fmt.Sprintf("%s:%d: %v", e.Name, e.Line, e.Err)
+	}
+	return fmt.Sprintf("%s:%d:%d: %v", e.Name, e.Line, e.Column, e.Err)
+}
+
+func (e *ParseError) Unwrap() error { return e.Err }
+
+// ReadSegmented reads a segmented file from r: one utterance per line, words
+// separated by single ASCII spaces (DESIGN.md section 2). It returns the words
+// of each non-empty line and the 1-based number of that line in the file;
+// name is used in error messages.
+//
+// Reading is lenient where no information is lost: runs of spaces, tabs and
+// carriage returns all separate words, lines holding nothing else are
+// skipped (keeping their numbers), and a byte order mark at the start of the
+// input is dropped. Each line is normalised to NFC. Invalid UTF-8, a NUL
+// character or a line longer than MaxLineBytes is an error, a *ParseError
+// giving name:line:column.
+func ReadSegmented(r io.Reader, name string) ([][]string, []int, error) {
+	br := bufio.NewReaderSize(r, 64*1024)
+	var (
+		utterances [][]string
+		lines      []int
+	)
+	for lineNo := 1; ; lineNo++ {
+		raw, err := readLine(br)
+		if err == io.EOF && raw == nil {
+			break
+		}
+		if err != nil && err != io.EOF {
+			if errors.Is(err, ErrLineTooLong) {
+				return nil, nil, &ParseError{Name: name, Line: lineNo, Err: err}
+			}
+			return nil, nil, fmt.Errorf("%s:%d: %w", name, lineNo, err)
+		}
+		if lineNo == 1 {
+			raw = bytes.TrimPrefix(raw, []byte("\uFEFF"))
+		}
+		if col, err := checkLine(raw); err != nil {
+			return nil, nil, &ParseError{Name: name, Line: lineNo, Column: col, Err: err}
+		}
+		words := strings.FieldsFunc(string(norm.NFC.Bytes(raw)), isSeparator)
+		if len(words) > 0 {
+			utterances = append(utterances, words)
+			lines = append(lines, lineNo)
+		}
+		if err == io.EOF {
+			break
+		}
+	}
+	return utterances, lines, nil
+}
+
+// isSeparator reports whether c separates words in a segmented line.
+func isSeparator(c rune) bool { return c == ' ' || c == '\t' || c == '\r' }
+
+// readLine returns the next line of br without its line ending (LF or
+// CRLF). It returns io.EOF with the last line if that has no newline, or
+// with nil at the end. A line over MaxLineBytes gives ErrLineTooLong.
+func readLine(br *bufio.Reader) ([]byte, error) {
+	var line []byte
+	for {
+		frag, err := br.ReadSlice('\n')
+		line = append(line, frag...)
+		if err == bufio.ErrBufferFull {
+			if len(line) > MaxLineBytes+1 { // +1 for a CR before the newline
+				return nil, ErrLineTooLong
+			}
+			continue
+		}
+		if err == io.EOF && len(line) == 0 {
+			return nil, io.EOF
+		}
+		line = bytes.TrimSuffix(line, []byte("\n"))
+		line = bytes.TrimSuffix(line, []byte("\r"))
+		if len(line) > MaxLineBytes {
+			return nil, ErrLineTooLong
+		}
+		return line, err
+	}
+}
+
+// checkLine returns the 1-based character column and the error of the first
+// invalid UTF-8 sequence or NUL in line.
+func checkLine(line []byte) (int, error) {
+	if utf8.Valid(line) && bytes.IndexByte(line, 0) < 0 {
+		return 0, nil
+	}
+	for i, col := 0, 1; i < len(line); col++ {
+		r, size := utf8.DecodeRune(line[i:])
+		switch {
+		case r == utf8.RuneError && size == 1:
+			return col, ErrInvalidUTF8
+		case r == 0:
+			return col, ErrNUL
+		}
+		i += size
+	}
+	panic("unreachable: line is invalid but no bad character was found")
+}
