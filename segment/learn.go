@@ -4,40 +4,55 @@ import (
 	"context"
 	"fmt"
 	"math/rand/v2"
+	"sync"
 )
 
 // Config says how to learn a segmentation.
 type Config struct {
 	// Model names the word model: "unigram" or "bigram".
-	Model string
-	// Iterations is the number of sweeps over the corpus.
-	Iterations int
+	Model string `json:"model"`
+	// Iterations is the number of sweeps over the corpus per chain.
+	Iterations int `json:"iterations"`
+	// Burnin is the number of sweeps before samples are kept; the
+	// annealing schedule runs over it.
+	Burnin int `json:"burnin"`
+	// Chains is the number of independent chains.
+	Chains int `json:"chains"`
+	// Block is the number of sweeps between rebuilds of a chain's model
+	// from its segmentation; checkpoints are taken at block ends.
+	Block int `json:"block"`
 	// Alpha0 is the concentration of the unigram word distribution G0.
-	Alpha0 float64
+	Alpha0 float64 `json:"alpha0"`
 	// Alpha1 is the concentration of each bigram successor distribution.
-	Alpha1 float64
+	Alpha1 float64 `json:"alpha1"`
 	// Discount0 and Discount1 are the Pitman-Yor discounts of the unigram
 	// and bigram levels; zero gives Dirichlet processes.
-	Discount0, Discount1 float64
+	Discount0 float64 `json:"discount0"`
+	Discount1 float64 `json:"discount1"`
 	// WordEnd is p#, the base distribution's word-end probability.
-	WordEnd float64
-	// Rho is the Beta prior's pseudo-count on utterance ends.
-	Rho float64
+	WordEnd float64 `json:"word_end"`
+	// Rho is the Beta prior's pseudo-count on utterance ends (unigram).
+	Rho float64 `json:"rho"`
+	// Fixed lists the hyperparameters that are not sampled; the values
+	// above are then used throughout, else they are starting values.
+	Fixed Fixed `json:"fixed"`
 	// InitialBoundary is the probability of a boundary at each free gap
 	// in the random first segmentation.
-	InitialBoundary float64
+	InitialBoundary float64 `json:"initial_boundary"`
 	// Seed fixes every random choice.
-	Seed uint64
-	// Schedule gives the temperature of each iteration; nil means Annealed.
-	Schedule Schedule
-	// Progress, when not nil, is called after every iteration.
-	Progress func(iteration int, logProb float64)
+	Seed uint64 `json:"seed"`
+	// Schedule gives the temperature of each burn-in iteration; nil means
+	// Annealed.
+	Schedule Schedule `json:"-"`
 }
 
-// DefaultConfig returns the published defaults of the unigram model
-// (Goldwater, Griffiths & Johnson 2009: alpha0 = 20, p# = 0.5, rho = 2).
+// DefaultConfig returns the defaults: the unigram model with the starting
+// values of Goldwater, Griffiths & Johnson (2009) (alpha0 = 20, p# = 0.5,
+// rho = 2; for the bigram model alpha0 = 3000 and alpha1 = 100 are
+// better starts), every hyperparameter sampled.
 func DefaultConfig() Config {
-	return Config{Model: "unigram", Iterations: 2000, Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1}
+	return Config{Model: "unigram", Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
+		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1}
 }
 
 // Validate reports the first setting that is out of range.
@@ -47,6 +62,12 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("unknown model %q (want unigram or bigram)", cfg.Model)
 	case cfg.Iterations < 1:
 		return fmt.Errorf("iterations must be at least 1, got %d", cfg.Iterations)
+	case cfg.Burnin < 0 || cfg.Burnin >= cfg.Iterations:
+		return fmt.Errorf("burn-in must be in [0, iterations), got %d of %d", cfg.Burnin, cfg.Iterations)
+	case cfg.Chains < 1:
+		return fmt.Errorf("chains must be at least 1, got %d", cfg.Chains)
+	case cfg.Block < 1:
+		return fmt.Errorf("block must be at least 1, got %d", cfg.Block)
 	case !(cfg.Discount0 >= 0 && cfg.Discount0 < 1) || !(cfg.Discount1 >= 0 && cfg.Discount1 < 1):
 		return fmt.Errorf("discounts must be in [0,1), got %v and %v", cfg.Discount0, cfg.Discount1)
 	case !(cfg.Alpha0 > 0) || !(cfg.Alpha1 > 0):
@@ -61,41 +82,94 @@ func (cfg Config) Validate() error {
 	return nil
 }
 
-// NewRand returns the random source of chain index of a run with seed.
-// Every random choice of a run comes from sources made here, so a run
-// depends on its seed and nothing else.
-func NewRand(seed uint64, chain int) *rand.Rand {
-	return rand.New(rand.NewPCG(seed, 0x9E3779B97F4A7C15^uint64(chain)))
+// NewRand returns a random source for stream of a run with seed.
+func NewRand(seed uint64, stream int) *rand.Rand {
+	return rand.New(rand.NewPCG(seed, 0x9E3779B97F4A7C15^uint64(stream)))
 }
 
-// Learn samples a segmentation of c under cfg and returns the last sample.
-// It stops early with ctx's error if ctx is cancelled.
-func Learn(ctx context.Context, c *Corpus, cfg Config) (*Segmentation, error) {
+// Result is the outcome of learning.
+type Result struct {
+	// Posterior[i] is the fraction of kept samples, over all chains, with
+	// a boundary before unit i.
+	Posterior []float64
+	// Decoded has a boundary wherever Posterior exceeds 1/2 (the minimum
+	// Bayes risk decision for boundary F), and wherever locked.
+	Decoded *Segmentation
+	// Chains holds each chain's final state, in index order.
+	Chains []*ChainState
+}
+
+// Run learns from c under cfg, starting each chain from states[i] when
+// given (a resumed run) or from a fresh random segmentation. Chains run in
+// parallel goroutines, each with its own random sources, so the result
+// does not depend on the number of threads. progress is called after every
+// sweep of any chain (serialised); checkpoint after every block of a
+// chain (possibly concurrently for different chains).
+func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState,
+	progress func(), checkpoint func(*ChainState) error) (*Result, error) {
 	if err := cfg.Validate(); err != nil {
 		return nil, err
 	}
-	schedule := cfg.Schedule
-	if schedule == nil {
-		schedule = Annealed
+	if states == nil {
+		states = make([]*ChainState, cfg.Chains)
+		for i := range states {
+			states[i] = InitialState(c, cfg, i)
+		}
 	}
-	rng := NewRand(cfg.Seed, 0)
-	seg := RandomSegmentation(c, cfg.InitialBoundary, rng)
-	base := UniformBase{WordEnd: cfg.WordEnd, Units: max(1, len(c.Inventory))}
-	order := 1
-	if cfg.Model == "bigram" {
-		order = 2
+	if len(states) != cfg.Chains {
+		return nil, fmt.Errorf("have %d chain states for %d chains", len(states), cfg.Chains)
 	}
-	m := NewWords(c, order, PitmanYor{cfg.Discount0, cfg.Alpha0}, PitmanYor{cfg.Discount1, cfg.Alpha1}, base)
-	m.Rho = cfg.Rho
-	g := NewWordsGibbs(seg, m, rng)
-	for it := 0; it < cfg.Iterations; it++ {
-		if err := ctx.Err(); err != nil {
+	var mu sync.Mutex
+	tick := func() {
+		if progress != nil {
+			mu.Lock()
+			progress()
+			mu.Unlock()
+		}
+	}
+	errs := make([]error, len(states))
+	var wg sync.WaitGroup
+	for i, st := range states {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			errs[i] = RunChain(ctx, c, cfg, st, tick, checkpoint)
+		}()
+	}
+	wg.Wait()
+	for _, err := range errs {
+		if err != nil {
 			return nil, err
 		}
-		g.Sweep(schedule(it, cfg.Iterations), rng)
-		if cfg.Progress != nil {
-			cfg.Progress(it+1, g.Model.LogJoint())
+	}
+	return Decode(c, states), nil
+}
+
+// Decode combines the chains' boundary counts into posteriors and the
+// minimum Bayes risk segmentation.
+func Decode(c *Corpus, states []*ChainState) *Result {
+	post := make([]float64, len(c.Units))
+	samples := 0
+	for _, st := range states {
+		samples += st.Samples
+	}
+	seg := NewSegmentation(c)
+	for i := range post {
+		n := 0
+		for _, st := range states {
+			n += int(st.BoundaryCounts[i])
+		}
+		if samples > 0 {
+			post[i] = float64(n) / float64(samples)
+		}
+		switch {
+		case seg.Boundary[i]: // utterance start or locked boundary
+			post[i] = 1
+		case c.LockAt(i) == Joined:
+			post[i] = 0
+		case post[i] > 0.5:
+			seg.Boundary[i] = true
 		}
 	}
-	return seg, nil
+	return &Result{Posterior: post, Decoded: seg, Chains: states}
 }

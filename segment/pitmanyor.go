@@ -24,8 +24,9 @@ type restaurants struct {
 	params    *PitmanYor
 	index     map[uint64]int32 // (context, dish) -> seats
 	seats     []dishSeating
-	customers []int32 // by context
-	tables    []int32 // by context
+	dishes    []WordType // dishes[i] is the dish of seats[i]
+	customers []int32    // by context
+	tables    []int32    // by context
 }
 
 func newRestaurants(p *PitmanYor) *restaurants {
@@ -50,6 +51,7 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 	}
 	r.index[k] = int32(len(r.seats))
 	r.seats = append(r.seats, dishSeating{})
+	r.dishes = append(r.dishes, w)
 	return &r.seats[len(r.seats)-1]
 }
 

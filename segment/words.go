@@ -167,8 +167,7 @@ func (m *Words) LogJoint() float64 {
 	if m.Order == 2 {
 		lp += m.bi.logSeatingProb(m.Bigram.Discount, m.Bigram.Concentration)
 	}
-	for k, i := range m.uni.index {
-		w := WordType(int32(uint32(k)))
+	for i, w := range m.uni.dishes { // slice order: reproducible sums
 		lp += float64(m.uni.seats[i].tables) * m.logBase(w)
 	}
 	return lp + m.logEnds(m.tokens)

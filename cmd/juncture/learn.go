@@ -1,10 +1,13 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 
 	"github.com/juncture-project/juncture/segment"
+	"github.com/juncture-project/juncture/segment/atomicfile"
+	"github.com/juncture-project/juncture/segment/state"
 	"github.com/urfave/cli/v2"
 )
 
@@ -17,49 +20,135 @@ func learnCommand() *cli.Command {
 		Description: "Reads INPUT (a file, or - for standard input): one utterance per line, no word\n" +
 			"boundaries. Writes one segmented line per utterance, words separated by single\n" +
 			"spaces, to standard output or --out. A progress bar goes to standard error.\n\n" +
-			"Example:\n   juncture learn --seed 3 --iterations 1000 --out words.txt transcripts.txt",
+			"Hyperparameters (alpha0, alpha1, the discounts, word-end) are sampled from vague\n" +
+			"priors; giving one on the command line fixes it at that value.\n\n" +
+			"With --state DIR the run keeps checkpoints in DIR; after an interruption,\n" +
+			"'juncture learn --state DIR --resume' continues it and ends with exactly the output\n" +
+			"an uninterrupted run gives.\n\n" +
+			"Examples:\n" +
+			"   juncture learn --seed 3 --out words.txt transcripts.txt\n" +
+			"   juncture learn --model bigram --chains 2 --posteriors gaps.tsv transcripts.txt",
 		Flags: append([]cli.Flag{
-			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram or bigram (hierarchical)"},
-			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus (annealed from temperature 10 to 1)"},
-			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input and seed give the same output"},
-			&cli.Float64Flag{Name: "alpha0", Value: d.Alpha0, Usage: "Dirichlet-process concentration: larger values favour new word types"},
-			&cli.Float64Flag{Name: "alpha1", Value: d.Alpha1, Usage: "bigram model: concentration of each word's successor distribution"},
-			&cli.Float64Flag{Name: "discount0", Usage: "Pitman-Yor discount of the unigram level (0: Dirichlet process)"},
-			&cli.Float64Flag{Name: "discount1", Usage: "Pitman-Yor discount of the bigram level (0: Dirichlet process)"},
-			&cli.Float64Flag{Name: "word-end", Value: d.WordEnd, Usage: "base distribution's probability p# of ending a word after each unit"},
-			&cli.Float64Flag{Name: "rho", Value: d.Rho, Usage: "pseudo-count of the Beta prior on utterance ends"},
+			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, or bigram (hierarchical: each word's successors back off to the unigram)"},
+			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},
+			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them (default: 4/5 of --iterations)"},
+			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
+			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
+			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)"},
+			&cli.Float64Flag{Name: "alpha1", Usage: "fix the bigram concentration (sampled otherwise; starts at 100)"},
+			&cli.Float64Flag{Name: "discount0", Usage: "fix the unigram Pitman-Yor discount (sampled otherwise; 0 gives a Dirichlet process)"},
+			&cli.Float64Flag{Name: "discount1", Usage: "fix the bigram Pitman-Yor discount (sampled otherwise)"},
+			&cli.Float64Flag{Name: "word-end", Usage: "fix the base distribution's word-end probability p# (sampled otherwise; starts at 0.5)"},
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the segmentation to `FILE` (atomically) instead of standard output"},
+			&cli.StringFlag{Name: "posteriors", Usage: "write every gap's boundary probability to `FILE` as TSV (line, offset, probability...)"},
+			&cli.StringFlag{Name: "state", Usage: "keep the run's settings, corpus, checkpoints and results in `DIR`"},
+			&cli.BoolFlag{Name: "resume", Usage: "continue the run in --state DIR from its last checkpoint (INPUT and model flags are taken from DIR)"},
+			&cli.IntFlag{Name: "block", Value: d.Block, Usage: "sweeps between checkpoints (each chain's model is rebuilt from its sample at every block)"},
 			&cli.BoolFlag{Name: "quiet", Aliases: []string{"q"}, Usage: "no progress bar"},
 		}, unitFlags()...),
 		Action: runLearn,
 	}
 }
 
-func runLearn(ctx *cli.Context) error {
-	c, err := readCorpusArg(ctx)
-	if err != nil {
-		return err
-	}
+// learnConfig builds the run's settings from the flags.
+func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg := segment.DefaultConfig()
 	cfg.Model = ctx.String("model")
+	if cfg.Model == "bigram" {
+		cfg.Alpha0 = 3000
+	}
 	cfg.Iterations = ctx.Int("iterations")
+	cfg.Burnin = cfg.Iterations * 4 / 5
+	if ctx.IsSet("burnin") {
+		cfg.Burnin = ctx.Int("burnin")
+	}
+	cfg.Chains = ctx.Int("chains")
+	cfg.Block = ctx.Int("block")
 	cfg.Seed = ctx.Uint64("seed")
-	cfg.Alpha0 = ctx.Float64("alpha0")
-	cfg.Alpha1 = ctx.Float64("alpha1")
-	cfg.Discount0 = ctx.Float64("discount0")
-	cfg.Discount1 = ctx.Float64("discount1")
-	cfg.WordEnd = ctx.Float64("word-end")
-	cfg.Rho = ctx.Float64("rho")
-	if err := cfg.Validate(); err != nil {
-		return err
+	set := func(name string, v *float64, fixed *bool) {
+		if ctx.IsSet(name) {
+			*v, *fixed = ctx.Float64(name), true
+		}
 	}
-	bar := newProgress(ctx.App.ErrWriter, cfg.Iterations, fmt.Sprintf("learning %d utterances", c.Len()), ctx.Bool("quiet"))
+	set("alpha0", &cfg.Alpha0, &cfg.Fixed.Alpha0)
+	set("alpha1", &cfg.Alpha1, &cfg.Fixed.Alpha1)
+	set("discount0", &cfg.Discount0, &cfg.Fixed.Discount0)
+	set("discount1", &cfg.Discount1, &cfg.Fixed.Discount1)
+	set("word-end", &cfg.WordEnd, &cfg.Fixed.WordEnd)
+	return cfg, cfg.Validate()
+}
+
+func runLearn(ctx *cli.Context) error {
+	dir := ctx.String("state")
+	var (
+		c      *segment.Corpus
+		cfg    segment.Config
+		states []*segment.ChainState
+		err    error
+	)
+	if ctx.Bool("resume") {
+		if dir == "" {
+			return errors.New("--resume needs --state DIR")
+		}
+		for _, f := range []string{"model", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries"} {
+			if ctx.IsSet(f) {
+				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
+			}
+		}
+		if ctx.NArg() > 0 {
+			return fmt.Errorf("--resume reads the corpus from %s; give no INPUT", dir)
+		}
+		var settings state.Settings
+		c, settings, states, err = state.Open(dir)
+		if err != nil {
+			return err
+		}
+		cfg = settings.Config
+		for i, st := range states {
+			if st == nil { // killed before this chain's first checkpoint
+				states[i] = segment.InitialState(c, cfg, i)
+			}
+		}
+	} else {
+		if cfg, err = learnConfig(ctx); err != nil {
+			return err
+		}
+		if c, err = readCorpusArg(ctx); err != nil {
+			return err
+		}
+		if dir != "" {
+			if err := state.Create(dir, c, cfg, ctx.Args().First()); err != nil {
+				return err
+			}
+		}
+	}
+	done := 0
+	for _, st := range states {
+		done += st.Iteration
+	}
+	bar := newProgress(ctx.App.ErrWriter, cfg.Iterations*cfg.Chains-done,
+		fmt.Sprintf("%s, %d utterances, %d chain(s)", cfg.Model, c.Len(), cfg.Chains), ctx.Bool("quiet"))
+	var progress func()
 	if bar != nil {
-		cfg.Progress = func(int, float64) { bar.Add(1) }
+		progress = func() { bar.Add(1) }
 	}
-	seg, err := segment.Learn(ctx.Context, c, cfg)
+	var checkpoint func(*segment.ChainState) error
+	if dir != "" {
+		checkpoint = func(st *segment.ChainState) error { return state.SaveChain(dir, st) }
+	}
+	res, err := segment.Run(ctx.Context, c, cfg, states, progress, checkpoint)
 	if err != nil {
 		return err
 	}
-	return writeOutput(ctx, func(w io.Writer) error { return seg.Write(w) })
+	if dir != "" {
+		if err := state.SaveResult(dir, res); err != nil {
+			return err
+		}
+	}
+	if p := ctx.String("posteriors"); p != "" {
+		if err := atomicfile.Write(p, func(w io.Writer) error { return state.WritePosteriors(w, c, res.Posterior) }); err != nil {
+			return err
+		}
+	}
+	return writeOutput(ctx, res.Decoded.Write)
 }

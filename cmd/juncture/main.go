@@ -5,14 +5,26 @@
 package main
 
 import (
+	"context"
+	"errors"
 	"fmt"
 	"os"
+	"os/signal"
+	"syscall"
 
 	"github.com/urfave/cli/v2"
 )
 
 func main() {
-	if err := newApp().Run(os.Args); err != nil {
+	// An interrupt cancels the context: a learning run stops at once and
+	// keeps its last checkpoint, which --resume continues from.
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	if err := newApp().RunContext(ctx, os.Args); err != nil {
+		if errors.Is(err, context.Canceled) {
+			fmt.Fprintln(os.Stderr, "juncture: interrupted; with --state DIR, 'juncture learn --state DIR --resume' continues")
+			os.Exit(130)
+		}
 		fmt.Fprintln(os.Stderr, "juncture:", err)
 		os.Exit(1)
 	}

@@ -1,0 +1,161 @@
+package segment
+
+import (
+	"context"
+	"fmt"
+	"math/rand/v2"
+)
+
+// Hyper is the set of hyperparameters a chain carries between iterations.
+type Hyper struct {
+	Alpha0    float64 `json:"alpha0"`
+	Alpha1    float64 `json:"alpha1"`
+	Discount0 float64 `json:"discount0"`
+	Discount1 float64 `json:"discount1"`
+	WordEnd   float64 `json:"word_end"`
+}
+
+// TracePoint records one iteration of a chain.
+type TracePoint struct {
+	Iteration   int     `json:"iteration"`
+	Temperature float64 `json:"temperature"`
+	LogProb     float64 `json:"log_prob"`
+	Hyper       Hyper   `json:"hyper"`
+	Acceptance  float64 `json:"acceptance"`
+	Words       int     `json:"words"`
+}
+
+// ChainState is everything a chain needs to continue: its segmentation,
+// hyperparameters, boundary counts since burn-in, and traces. A chain is
+// rebuilt from its ChainState at the start of every block of
+// Config.Block iterations, in an uninterrupted run as after a resume, so
+// resuming gives the same result as not stopping.
+type ChainState struct {
+	Index     int    `json:"index"`
+	Iteration int    `json:"iteration"` // sweeps completed
+	Hyper     Hyper  `json:"hyper"`
+	Boundary  []bool `json:"-"`
+	// BoundaryCounts[i] counts the samples after burn-in with a boundary
+	// before unit i; Samples is their number.
+	BoundaryCounts []uint32     `json:"-"`
+	Samples        int          `json:"samples"`
+	Trace          []TracePoint `json:"trace"`
+}
+
+// blockRand returns the random source for one block of one chain.
+func blockRand(seed uint64, chain, block int) *rand.Rand {
+	return rand.New(rand.NewPCG(seed^0x6A09E667F3BCC909, uint64(chain)<<32|uint64(uint32(block))))
+}
+
+// InitialState returns chain index's state before its first sweep.
+func InitialState(c *Corpus, cfg Config, index int) *ChainState {
+	rng := blockRand(cfg.Seed, index, -1)
+	seg := RandomSegmentation(c, cfg.InitialBoundary, rng)
+	return &ChainState{
+		Index: index,
+		Hyper: Hyper{Alpha0: cfg.Alpha0, Alpha1: cfg.Alpha1, Discount0: cfg.Discount0,
+			Discount1: cfg.Discount1, WordEnd: cfg.WordEnd},
+		Boundary:       seg.Boundary,
+		BoundaryCounts: make([]uint32, len(c.Units)),
+	}
+}
+
+// newModel builds the model cfg asks for with hyperparameters h.
+func newModel(c *Corpus, cfg Config, h Hyper) *Words {
+	order := 1
+	if cfg.Model == "bigram" {
+		order = 2
+	}
+	base := UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory))}
+	m := NewWords(c, order, PitmanYor{h.Discount0, h.Alpha0}, PitmanYor{h.Discount1, h.Alpha1}, base)
+	m.Rho = cfg.Rho
+	return m
+}
+
+func (m *Words) hyper() Hyper {
+	h := Hyper{Alpha0: m.Unigram.Concentration, Alpha1: m.Bigram.Concentration,
+		Discount0: m.Unigram.Discount, Discount1: m.Bigram.Discount}
+	if ub, ok := m.Base.(UniformBase); ok {
+		h.WordEnd = ub.WordEnd
+	}
+	return h
+}
+
+// runBlock advances st by up to cfg.Block iterations, ending at a block
+// boundary or at cfg.Iterations.
+func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func()) error {
+	block := st.Iteration / cfg.Block
+	rng := blockRand(cfg.Seed, st.Index, block)
+	seg := &Segmentation{Corpus: c, Boundary: st.Boundary}
+	m := newModel(c, cfg, st.Hyper)
+	g := NewWordsGibbs(seg, m, rng)
+	stop := min(cfg.Iterations, (block+1)*cfg.Block)
+	for st.Iteration < stop {
+		if err := ctx.Err(); err != nil {
+			return err
+		}
+		temp := cfg.temperature(st.Iteration)
+		g.accepts, g.steps = 0, 0
+		g.Sweep(temp, rng)
+		m.SampleHyperparameters(cfg.Fixed, rng)
+		st.Iteration++
+		if st.Iteration > cfg.Burnin {
+			for i, b := range seg.Boundary {
+				if b {
+					st.BoundaryCounts[i]++
+				}
+			}
+			st.Samples++
+		}
+		st.Trace = append(st.Trace, TracePoint{Iteration: st.Iteration, Temperature: temp,
+			LogProb: m.LogJoint(), Hyper: m.hyper(), Acceptance: g.AcceptanceRate(), Words: m.tokens})
+		if progress != nil {
+			progress()
+		}
+	}
+	st.Hyper = m.hyper()
+	return nil
+}
+
+// temperature returns the temperature of iteration k: the schedule runs
+// over the burn-in and sampling after it is at temperature 1.
+func (cfg Config) temperature(k int) float64 {
+	if k >= cfg.Burnin {
+		return 1
+	}
+	s := cfg.Schedule
+	if s == nil {
+		s = Annealed
+	}
+	return s(k, cfg.Burnin)
+}
+
+// RunChain runs one chain from st to cfg.Iterations, calling checkpoint
+// after every block. It returns ctx's error if cancelled, leaving st at
+// its last completed block.
+func RunChain(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), checkpoint func(*ChainState) error) error {
+	if len(st.Boundary) != len(c.Units) || len(st.BoundaryCounts) != len(c.Units) {
+		return fmt.Errorf("chain %d: state does not fit the corpus", st.Index)
+	}
+	for st.Iteration < cfg.Iterations {
+		work := st.clone()
+		if err := runBlock(ctx, c, cfg, work, progress); err != nil {
+			return err
+		}
+		*st = *work
+		if checkpoint != nil {
+			if err := checkpoint(st); err != nil {
+				return err
+			}
+		}
+	}
+	return nil
+}
+
+func (st *ChainState) clone() *ChainState {
+	cp := *st
+	cp.Boundary = append([]bool(nil), st.Boundary...)
+	cp.BoundaryCounts = append([]uint32(nil), st.BoundaryCounts...)
+	cp.Trace = append([]TracePoint(nil), st.Trace...)
+	return &cp
+}

@@ -1,0 +1,144 @@
+package segment
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+
+	"gonum.org/v1/gonum/stat/distuv"
+)
+
+// Hyperparameter priors, vague and stated here once:
+//   - each concentration a: log-uniform on [MinConcentration,
+//     MaxConcentration], the scale-invariant choice when nothing is known
+//     of the order of magnitude (common practice);
+//   - each discount d: uniform on [0, MaxDiscount], i.e. Beta(1,1) as in
+//     Teh (2006), kept away from 1;
+//   - p#: Beta(1,1).
+const (
+	MinConcentration = 1e-2
+	MaxConcentration = 1e6
+	MaxDiscount      = 0.95
+)
+
+// Fixed says which hyperparameters are not sampled.
+type Fixed struct {
+	Alpha0, Alpha1, Discount0, Discount1, WordEnd bool
+}
+
+// seatingStats are the sufficient statistics of a level's seating for its
+// hyperparameters: per-context customer and table totals and the histogram
+// of table sizes pooled over all dishes.
+type seatingStats struct {
+	ctxCustomers, ctxTables []float64
+	sizes                   []int32   // distinct table sizes, ascending
+	tables                  []float64 // tables[i]: number of tables of sizes[i]
+}
+
+func (r *restaurants) stats() seatingStats {
+	var s seatingStats
+	for ctx := range r.customers {
+		if r.customers[ctx] > 0 {
+			s.ctxCustomers = append(s.ctxCustomers, float64(r.customers[ctx]))
+			s.ctxTables = append(s.ctxTables, float64(r.tables[ctx]))
+		}
+	}
+	bySize := map[int32]float64{}
+	for i := range r.seats {
+		for _, sc := range r.seats[i].hist {
+			bySize[sc.Size] += float64(sc.Tables)
+		}
+	}
+	for size := range bySize {
+		s.sizes = append(s.sizes, size)
+	}
+	slices.Sort(s.sizes) // a fixed order keeps float sums reproducible
+	for _, size := range s.sizes {
+		s.tables = append(s.tables, bySize[size])
+	}
+	return s
+}
+
+// logLikelihood returns log P(seating | d, a) up to terms free of d and a,
+// from the Pitman-Yor exchangeable partition probability function (Pitman
+// 1995; Teh 2006, eq. 11):
+//
+//	sum_u [ sum_{k=1}^{t_u-1} log(a + k d) - log Gamma(a + c_u) + log Gamma(a + 1) ]
+//	+ sum_tables [ log Gamma(size - d) - log Gamma(1 - d) ]
+func (s *seatingStats) logLikelihood(d, a float64) float64 {
+	lp := 0.0
+	for i, c := range s.ctxCustomers {
+		t := s.ctxTables[i]
+		if d > 0 {
+			// sum_{k=1}^{t-1} log(a + k d) = (t-1) log d + lgamma(a/d + t) - lgamma(a/d + 1)
+			lp += (t-1)*math.Log(d) + lgamma(a/d+t) - lgamma(a/d+1)
+		} else {
+			lp += (t - 1) * math.Log(a)
+		}
+		lp += lgamma(a+1) - lgamma(a+c)
+	}
+	if d > 0 {
+		lg := lgamma(1 - d)
+		for i, size := range s.sizes {
+			lp += s.tables[i] * (lgamma(float64(size)-d) - lg)
+		}
+	}
+	return lp
+}
+
+// sampleLevel resamples the discount and concentration of one level by
+// slice sampling under the priors above, given its seating.
+func sampleLevel(r *restaurants, p *PitmanYor, fixD, fixA bool, rng *rand.Rand) {
+	if len(r.seats) == 0 {
+		return
+	}
+	st := r.stats()
+	ll := st.logLikelihood
+	if !fixD {
+		a := p.Concentration
+		p.Discount = sliceSample(math.Max(p.Discount, 1e-6), func(d float64) float64 { return ll(d, a) }, 0.1, 0, MaxDiscount, rng)
+	}
+	if !fixA {
+		d := p.Discount
+		// Sample log a: the log-uniform prior is flat in log a.
+		la := sliceSample(math.Log(p.Concentration), func(la float64) float64 { return ll(d, math.Exp(la)) },
+			1, math.Log(MinConcentration), math.Log(MaxConcentration), rng)
+		p.Concentration = math.Exp(la)
+	}
+}
+
+// SampleHyperparameters resamples every hyperparameter of m not marked
+// fixed, given the current seating.
+func (m *Words) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
+	sampleLevel(m.uni, &m.Unigram, fixed.Discount0, fixed.Alpha0, rng)
+	if m.Order == 2 {
+		sampleLevel(m.bi, &m.Bigram, fixed.Discount1, fixed.Alpha1, rng)
+	}
+	if ub, ok := m.Base.(UniformBase); ok && !fixed.WordEnd {
+		m.sampleWordEnd(ub, rng)
+	}
+}
+
+// sampleWordEnd draws p# from its conditional, which is conjugate: every
+// unigram-level table of word w contributes p#(1-p#)^(|w|-1) to the base
+// factor, so under a Beta(1,1) prior p# | seating ~ Beta(1 + T, 1 + sum
+// (|w|-1)) over the T word tables.
+func (m *Words) sampleWordEnd(ub UniformBase, rng *rand.Rand) {
+	tables, extra := 0.0, 0.0
+	for i := range m.uni.seats {
+		w := m.uni.dishes[i]
+		if w == End {
+			continue
+		}
+		t := float64(m.uni.seats[i].tables)
+		tables += t
+		extra += t * float64(m.Types.Length[w]-1)
+	}
+	ub.WordEnd = distuv.Beta{Alpha: 1 + tables, Beta: 1 + extra, Src: rng}.Rand()
+	ub.WordEnd = math.Min(math.Max(ub.WordEnd, 1e-6), 1-1e-6)
+	m.Base = ub
+	for t := range m.Types.Length {
+		s := int(m.Types.First[t])
+		m.Types.LogBase[t] = ub.LogProb(m.Corpus, s, s+int(m.Types.Length[t]))
+	}
+}

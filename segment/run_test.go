@@ -1,0 +1,152 @@
+package segment_test
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"math/rand/v2"
+	"reflect"
+	"runtime"
+	"strings"
+	"sync"
+	"testing"
+
+	. "github.com/juncture-project/juncture/segment"
+)
+
+// syntheticCorpus makes n utterances of 1-4 words drawn from a small
+// made-up vocabulary, seeded, for tests of run mechanics (not accuracy).
+func syntheticCorpus(t testing.TB, n int) *Corpus {
+	vocab := []string{"ba", "kitu", "mo", "lesa", "ni", "ropa", "e", "tumbi"}
+	rng := rand.New(rand.NewPCG(42, 42))
+	var b strings.Builder
+	for i := 0; i < n; i++ {
+		k := 1 + rng.IntN(4)
+		for j := 0; j < k; j++ {
+			b.WriteString(vocab[rng.IntN(len(vocab))])
+		}
+		b.WriteByte('\n')
+	}
+	return tinyCorpus(t, strings.Split(strings.TrimSpace(b.String()), "\n")...)
+}
+
+func runConfig(model string) Config {
+	cfg := DefaultConfig()
+	cfg.Model = model
+	cfg.Iterations, cfg.Burnin, cfg.Block, cfg.Chains = 40, 20, 7, 2
+	cfg.Seed = 5
+	return cfg
+}
+
+func output(t *testing.T, res *Result) string {
+	var b bytes.Buffer
+	if err := res.Decoded.Write(&b); err != nil {
+		t.Fatal(err)
+	}
+	return b.String()
+}
+
+// TestRunIndependentOfThreads: chains run in goroutines, yet the result
+// depends on the seed only.
+func TestRunIndependentOfThreads(t *testing.T) {
+	c := syntheticCorpus(t, 60)
+	for _, model := range []string{"unigram", "bigram"} {
+		cfg := runConfig(model)
+		var outs []string
+		var posts [][]float64
+		for _, procs := range []int{1, 2, 4} {
+			old := runtime.GOMAXPROCS(procs)
+			res, err := Run(context.Background(), c, cfg, nil, nil, nil)
+			runtime.GOMAXPROCS(old)
+			if err != nil {
+				t.Fatal(err)
+			}
+			outs = append(outs, output(t, res))
+			posts = append(posts, res.Posterior)
+		}
+		for i := 1; i < len(outs); i++ {
+			if outs[i] != outs[0] || !reflect.DeepEqual(posts[i], posts[0]) {
+				t.Errorf("%s: output differs with GOMAXPROCS", model)
+			}
+		}
+		cfg.Seed++
+		res, err := Run(context.Background(), c, cfg, nil, nil, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if reflect.DeepEqual(res.Posterior, posts[0]) {
+			t.Errorf("%s: another seed gave the same posteriors", model)
+		}
+	}
+}
+
+// TestRunResumeIdentical stops a run after some checkpoints, resumes from
+// the checkpointed states and compares with an uninterrupted run.
+func TestRunResumeIdentical(t *testing.T) {
+	c := syntheticCorpus(t, 60)
+	for _, model := range []string{"unigram", "bigram"} {
+		cfg := runConfig(model)
+		full, err := Run(context.Background(), c, cfg, nil, nil, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, stopAfter := range []int{1, 3, 6} {
+			ctx, cancel := context.WithCancel(context.Background())
+			var mu sync.Mutex
+			saved := make([]*ChainState, cfg.Chains)
+			n := 0
+			checkpoint := func(st *ChainState) error {
+				mu.Lock()
+				defer mu.Unlock()
+				cp := *st
+				cp.Boundary = append([]bool(nil), st.Boundary...)
+				cp.BoundaryCounts = append([]uint32(nil), st.BoundaryCounts...)
+				cp.Trace = append([]TracePoint(nil), st.Trace...)
+				saved[st.Index] = &cp
+				if n++; n == stopAfter {
+					cancel()
+				}
+				return nil
+			}
+			_, err := Run(ctx, c, cfg, nil, nil, checkpoint)
+			if !errors.Is(err, context.Canceled) {
+				t.Fatalf("stopped run: err = %v", err)
+			}
+			for i := range saved {
+				if saved[i] == nil {
+					saved[i] = InitialState(c, cfg, i)
+				}
+			}
+			resumed, err := Run(context.Background(), c, cfg, saved, nil, nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if output(t, resumed) != output(t, full) || !reflect.DeepEqual(resumed.Posterior, full.Posterior) {
+				t.Errorf("%s: resumed after %d checkpoints differs from uninterrupted run", model, stopAfter)
+			}
+			for i := range full.Chains {
+				if !reflect.DeepEqual(full.Chains[i].Trace, resumed.Chains[i].Trace) {
+					t.Errorf("%s: chain %d trace differs after resume", model, i)
+				}
+			}
+		}
+	}
+}
+
+// TestDecodeMinimumBayesRisk checks the decision rule: a boundary exactly
+// where more than half the samples have one.
+func TestDecodeMinimumBayesRisk(t *testing.T) {
+	c := tinyCorpus(t, "abcd")
+	st := []*ChainState{
+		{Samples: 4, BoundaryCounts: []uint32{4, 3, 2, 0}},
+		{Samples: 2, BoundaryCounts: []uint32{2, 1, 2, 2}},
+	}
+	res := Decode(c, st)
+	want := []float64{1, 4.0 / 6, 4.0 / 6, 2.0 / 6}
+	if !reflect.DeepEqual(res.Posterior, want) {
+		t.Errorf("posterior %v, want %v", res.Posterior, want)
+	}
+	if got := strings.Join(res.Decoded.WordStrings(0), " "); got != "a b cd" {
+		t.Errorf("decoded %q, want %q", got, "a b cd")
+	}
+}
