@@ -1,5 +1,111 @@
 package main
 
-import "github.com/urfave/cli/v2"
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
 
-func demoCommand() *cli.Command { return &cli.Command{Name: "demo", Usage: "(coming)"} }
+	"github.com/juncture-project/juncture/data/demo"
+	"github.com/juncture-project/juncture/lexicon"
+	"github.com/juncture-project/juncture/segment"
+	"github.com/juncture-project/juncture/segment/score"
+	"github.com/urfave/cli/v2"
+)
+
+func demoCommand() *cli.Command {
+	return &cli.Command{
+		Name:  "demo",
+		Usage: "run the whole job on the embedded demo corpus of an invented language",
+		Description: "Learns word boundaries for 720 transcribed utterances of Kelaru, a language\n" +
+			"invented for this demo (see data/demo/README.md), scores the result against the\n" +
+			"corpus's gold segmentation and lists the most frequent words found, with how sure\n" +
+			"the sampler is of their edges and whether the invented lexicon has them.",
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "model", Value: "unigram", Usage: "word model: unigram or bigram"},
+			&cli.IntFlag{Name: "iterations", Value: 300, Usage: "Gibbs sweeps per chain"},
+			&cli.IntFlag{Name: "chains", Value: 2, Usage: "independent chains, pooled"},
+			&cli.Uint64Flag{Name: "seed", Value: 1, Usage: "random seed"},
+			&cli.IntFlag{Name: "top", Value: 20, Usage: "how many of the most frequent words to list"},
+			&cli.BoolFlag{Name: "quiet", Aliases: []string{"q"}, Usage: "no progress bar"},
+		},
+		Action: runDemo,
+	}
+}
+
+func runDemo(ctx *cli.Context) error {
+	out := ctx.App.Writer
+	c, err := segment.ReadCorpus(bytes.NewReader(demo.Input()), "demo/input.txt", segment.ReadOptions{})
+	if err != nil {
+		return err
+	}
+	cfg := segment.DefaultConfig()
+	cfg.Model = ctx.String("model")
+	if cfg.Model == "bigram" {
+		cfg.Alpha0 = 3000
+	}
+	cfg.Iterations = ctx.Int("iterations")
+	cfg.Burnin = cfg.Iterations * 4 / 5
+	cfg.Chains = ctx.Int("chains")
+	cfg.Seed = ctx.Uint64("seed")
+	if err := cfg.Validate(); err != nil {
+		return err
+	}
+	fmt.Fprintf(out, "Kelaru demo: %d utterances of an invented language (%d units, %d distinct).\n",
+		c.Len(), len(c.Units), len(c.Inventory))
+	fmt.Fprintf(out, "Learning with the %s model, %d chain(s) of %d sweeps...\n", cfg.Model, cfg.Chains, cfg.Iterations)
+	bar := newProgress(ctx.App.ErrWriter, cfg.Iterations*cfg.Chains, "learning", ctx.Bool("quiet"))
+	var progress func()
+	if bar != nil {
+		progress = func() { bar.Add(1) }
+	}
+	res, err := segment.Run(ctx.Context, c, cfg, nil, progress, nil)
+	if err != nil {
+		return err
+	}
+
+	gold, _, err := score.ReadSegmented(bytes.NewReader(demo.Gold()), "demo/gold.txt")
+	if err != nil {
+		return err
+	}
+	pred := make([][]string, c.Len())
+	for u := range pred {
+		pred[u] = res.Decoded.WordStrings(u)
+	}
+	s, err := score.Compare(gold, pred)
+	if err != nil {
+		return err
+	}
+	fmt.Fprintln(out, "\nAgainst the gold segmentation:")
+	if err := s.WriteTable(out); err != nil {
+		return err
+	}
+
+	fmt.Fprintln(out, "\nFirst utterances, as segmented (gold below):")
+	for u := 0; u < min(5, c.Len()); u++ {
+		fmt.Fprintf(out, "  %-40s  %s\n", strings.Join(pred[u], " "), strings.Join(gold[u], " "))
+	}
+
+	entries := demo.Entries()
+	gloss := map[string]string{}
+	for _, e := range entries {
+		gloss[e.Form] = e.Gloss
+	}
+	lex := lexicon.Build(res.Decoded, res.Posterior)
+	fmt.Fprintf(out, "\n%d word types found. The %d most frequent:\n", len(lex), min(ctx.Int("top"), len(lex)))
+	return writeDemoLexicon(out, lex[:min(ctx.Int("top"), len(lex))], gloss)
+}
+
+func writeDemoLexicon(w io.Writer, lex []lexicon.Entry, gloss map[string]string) error {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "  word\tcount\tconfidence\tin the invented lexicon\texample lines")
+	for _, e := range lex {
+		known := "no"
+		if g, ok := gloss[e.Form]; ok {
+			known = "yes: " + g
+		}
+		fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%s\t%v\n", e.Form, e.Count, e.Confidence, known, e.Lines)
+	}
+	return tw.Flush()
+}

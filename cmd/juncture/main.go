@@ -10,6 +10,7 @@ import (
 	"fmt"
 	"os"
 	"os/signal"
+	"runtime/pprof"
 	"syscall"
 
 	"github.com/urfave/cli/v2"
@@ -42,6 +43,35 @@ func newApp() *cli.App {
 			scoreCommand(),
 			demoCommand(),
 		},
-		HideHelpCommand: false,
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "cpuprofile", Usage: "write a CPU profile to `FILE` (for go tool pprof)", Hidden: true},
+		},
+		Before: startProfile,
+		After:  stopProfile,
 	}
+}
+
+var profileFile *os.File
+
+// startProfile starts CPU profiling when --cpuprofile is given; profiles
+// guide optimisation (see DEVELOPERS.md).
+func startProfile(ctx *cli.Context) error {
+	name := ctx.String("cpuprofile")
+	if name == "" {
+		return nil
+	}
+	f, err := os.Create(name)
+	if err != nil {
+		return err
+	}
+	profileFile = f
+	return pprof.StartCPUProfile(f)
+}
+
+func stopProfile(*cli.Context) error {
+	if profileFile == nil {
+		return nil
+	}
+	pprof.StopCPUProfile()
+	return profileFile.Close()
 }
