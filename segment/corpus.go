@@ -39,8 +39,9 @@ type ReadOptions struct {
 	// any character outside it is an error. When nil, a unit is one
 	// character with everything that attaches to it.
 	Inventory *Inventory
-	// Ignore lists characters dropped before splitting into units (stress
-	// marks, punctuation).
+	// Ignore lists characters dropped from the input (stress marks,
+	// punctuation): they never start a unit and are removed from a unit
+	// they attach to. Columns in errors still count them.
 	Ignore string
 	// SpacesAreBoundaries makes spaces in the input certain boundaries.
 	// Otherwise spaces are ignored.
@@ -91,11 +92,16 @@ var (
 
 // ReadCorpus reads one utterance per line from r. name is used in error
 // messages. Lines are normalised to NFC; empty lines are skipped but keep
-// their numbers. Column numbers in errors count characters of the
-// normalised line.
+// their numbers. A byte order mark (U+FEFF) at the start of r is dropped:
+// the Unicode Standard treats it in UTF-8 as an encoding signature, not as
+// text (section 23.8, "Specials"; section number recalled from memory).
+// Column numbers in errors count characters of the normalised line.
 func ReadCorpus(r io.Reader, name string, opts ReadOptions) (*Corpus, error) {
 	c := NewCorpus(name)
 	br := bufio.NewReaderSize(r, 64*1024)
+	if bom, err := br.Peek(len(byteOrderMark)); err == nil && string(bom) == byteOrderMark {
+		br.Discard(len(byteOrderMark))
+	}
 	lineNo := 0
 	var locks []Lock
 	anyLock := false
@@ -107,7 +113,14 @@ func ReadCorpus(r io.Reader, name string, opts ReadOptions) (*Corpus, error) {
 		lineNo++
 		if err != nil && err != io.EOF {
 			if errors.Is(err, ErrLineTooLong) {
-				return nil, &PositionError{name, lineNo, 1, err}
+				// Point at the character of the normalised line that
+				// crosses the limit: back up to where NFC may start a
+				// new character.
+				i := MaxLineBytes
+				for i > 0 && !(utf8.RuneStart(line[i]) && norm.NFC.Properties(line[i:]).BoundaryBefore()) {
+					i--
+				}
+				return nil, &PositionError{name, lineNo, column(line, i), err}
 			}
 			return nil, fmt.Errorf("%s:%d: %w", name, lineNo, err)
 		}
@@ -133,26 +146,27 @@ func ReadCorpus(r io.Reader, name string, opts ReadOptions) (*Corpus, error) {
 	return c, nil
 }
 
+// byteOrderMark is U+FEFF encoded in UTF-8.
+const byteOrderMark = "\uFEFF"
+
 // NewCorpus returns an empty corpus to which utterances can be added with
 // AddUtterance.
 func NewCorpus(name string) *Corpus {
 	return &Corpus{Name: name, Starts: []int{0}, unitIDs: map[string]Unit{}}
 }
 
-// readLine returns the next line without its line ending.
+// readLine returns the next line without its line ending ("\n" or "\r\n").
+// A line longer than MaxLineBytes is returned cut to its first
+// MaxLineBytes+1 bytes or more, with ErrLineTooLong.
 func readLine(br *bufio.Reader) ([]byte, error) {
 	var buf []byte
 	for {
 		frag, err := br.ReadSlice('\n')
 		buf = append(buf, frag...)
-		if len(buf) > MaxLineBytes+2 {
-			// Drain the rest of the line so the count stays right.
-			for err == bufio.ErrBufferFull {
-				_, err = br.ReadSlice('\n')
-			}
-			return buf, ErrLineTooLong
-		}
 		if err == bufio.ErrBufferFull {
+			if len(buf) > MaxLineBytes+len("\r\n") {
+				return buf, ErrLineTooLong
+			}
 			continue
 		}
 		if err == io.EOF && len(buf) == 0 {
@@ -160,26 +174,35 @@ func readLine(br *bufio.Reader) ([]byte, error) {
 		}
 		buf = bytes.TrimSuffix(buf, []byte("\n"))
 		buf = bytes.TrimSuffix(buf, []byte("\r"))
+		if len(buf) > MaxLineBytes {
+			return buf, ErrLineTooLong
+		}
 		return buf, err
 	}
 }
 
-// splitLine validates and splits one line into unit texts. Returned locks
-// hold one entry per unit.
-func (c *Corpus) splitLine(raw []byte, opts ReadOptions) ([]string, []Lock, *PositionError) {
+// column returns the 1-based column, in characters of the NFC-normalised
+// line, of the character that starts at byte i of the raw line. Used only
+// for errors, so it may cost a normalisation.
+func column(raw []byte, i int) int {
+	return utf8.RuneCount(norm.NFC.Bytes(raw[:i])) + 1
+}
+
+// splitLine validates one line, splits it into units and interns them.
+// Returned locks hold one entry per unit.
+func (c *Corpus) splitLine(raw []byte, opts ReadOptions) ([]Unit, []Lock, *PositionError) {
 	for i := 0; i < len(raw); {
 		r, size := utf8.DecodeRune(raw[i:])
-		col := utf8.RuneCount(raw[:i]) + 1
 		if r == utf8.RuneError && size == 1 {
-			return nil, nil, &PositionError{Column: col, Err: ErrInvalidUTF8}
+			return nil, nil, &PositionError{Column: column(raw, i), Err: ErrInvalidUTF8}
 		}
 		if r == 0 {
-			return nil, nil, &PositionError{Column: col, Err: ErrNUL}
+			return nil, nil, &PositionError{Column: column(raw, i), Err: ErrNUL}
 		}
 		i += size
 	}
 	line := norm.NFC.String(string(raw))
-	var units []string
+	var units []Unit
 	var locks []Lock
 	pendingPause := false
 	col := 1
@@ -215,7 +238,11 @@ func (c *Corpus) splitLine(raw []byte, opts ReadOptions) ([]string, []Lock, *Pos
 				return r
 			}, u)
 		}
-		units = append(units, u)
+		id, ok := c.intern(u)
+		if !ok {
+			return nil, nil, &PositionError{Column: col, Err: ErrTooManyUnit}
+		}
+		units = append(units, id)
 		if pendingPause {
 			locks = append(locks, Boundary)
 		} else {
@@ -232,14 +259,33 @@ func (c *Corpus) splitLine(raw []byte, opts ReadOptions) ([]string, []Lock, *Pos
 }
 
 // AddUtterance appends an utterance given as unit texts, interning new
-// units. line is its 1-based source line.
+// units. line is its 1-based source line. An empty utterance, an empty
+// unit or a unit containing white space is an error, as is going past
+// MaxUnits distinct units; on error c is unchanged.
 func (c *Corpus) AddUtterance(units []string, line int) error {
+	if len(units) == 0 {
+		return fmt.Errorf("%s:%d: empty utterance", c.Name, line)
+	}
+	var fresh map[string]bool
 	for _, u := range units {
-		if _, ok := c.unitIDs[u]; !ok && len(c.Inventory) >= MaxUnits {
-			return fmt.Errorf("%s:%d: %w", c.Name, line, ErrTooManyUnit)
+		if u == "" || strings.ContainsAny(u, " \t\r\n") {
+			return fmt.Errorf("%s:%d: unit %q is empty or contains white space", c.Name, line, u)
+		}
+		if _, ok := c.unitIDs[u]; !ok {
+			if fresh == nil {
+				fresh = map[string]bool{}
+			}
+			fresh[u] = true
 		}
 	}
-	c.appendUtterance(units, line)
+	if len(c.Inventory)+len(fresh) > MaxUnits {
+		return fmt.Errorf("%s:%d: %w", c.Name, line, ErrTooManyUnit)
+	}
+	ids := make([]Unit, len(units))
+	for i, u := range units {
+		ids[i], _ = c.intern(u)
+	}
+	c.appendUtterance(ids, line)
 	if c.Locks != nil {
 		for range units {
 			c.Locks = append(c.Locks, Free)
@@ -248,17 +294,27 @@ func (c *Corpus) AddUtterance(units []string, line int) error {
 	return nil
 }
 
-func (c *Corpus) appendUtterance(units []string, line int) {
-	for _, u := range units {
-		id, ok := c.unitIDs[u]
-		if !ok {
-			if len(c.Inventory) >= MaxUnits {
-				panic("segment: too many units") // checked by callers
-			}
-			id = Unit(len(c.Inventory))
-			c.unitIDs[u] = id
-			c.Inventory = append(c.Inventory, u)
-		}
+// intern returns the Unit for text u, adding it if new. It reports false
+// when u is new and the corpus already has MaxUnits units.
+func (c *Corpus) intern(u string) (Unit, bool) {
+	if id, ok := c.unitIDs[u]; ok {
+		return id, true
+	}
+	if len(c.Inventory) >= MaxUnits {
+		return 0, false
+	}
+	// Clone: u may be a slice of a long line that would otherwise stay
+	// in memory for as long as the corpus.
+	u = strings.Clone(u)
+	id := Unit(len(c.Inventory))
+	c.unitIDs[u] = id
+	c.Inventory = append(c.Inventory, u)
+	return id, true
+}
+
+// appendUtterance appends an utterance of interned units.
+func (c *Corpus) appendUtterance(units []Unit, line int) {
+	for _, id := range units {
 		c.Units = append(c.Units, id)
 		c.keys = append(c.keys, byte(id), byte(id>>8))
 	}

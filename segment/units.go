@@ -5,6 +5,8 @@ import (
 	"sort"
 	"unicode"
 	"unicode/utf8"
+
+	"golang.org/x/text/unicode/norm"
 )
 
 // attaches reports whether r belongs to the unit before it rather than
@@ -12,12 +14,27 @@ import (
 // U+0361 and U+035C) and the spacing modifier letters U+02B0..U+02FF that
 // phonemic transcription writes after a segment (length, aspiration,
 // labialisation, palatalisation). DESIGN section 2.
+//
+// The IPA stress marks U+02C8 and U+02CC lie in that block but are written
+// before the stressed syllable (the IPA chart's Suprasegmentals example is
+// ˌfoʊnəˈtɪʃən; recalled from memory), so they do not attach to the
+// segment before them: each is a unit of its own unless ReadOptions.Ignore
+// drops it.
 func attaches(r rune) bool {
+	if r == primaryStress || r == secondaryStress {
+		return false
+	}
 	if r >= 0x02B0 && r <= 0x02FF {
 		return true
 	}
 	return unicode.In(r, unicode.Mn, unicode.Me, unicode.Mc)
 }
+
+// The IPA stress marks.
+const (
+	primaryStress   = '\u02C8' // ˈ
+	secondaryStress = '\u02CC' // ˌ
+)
 
 // joinsNext reports whether r, when it ends a unit, also pulls the following
 // character into that unit: a tie bar links the characters on both sides.
@@ -29,14 +46,20 @@ type Inventory struct {
 	maxLen int // longest unit in bytes
 }
 
-// NewInventory returns an Inventory of the given units. Empty strings and
-// units containing spaces are rejected.
+// NewInventory returns an Inventory of the given units. Units are
+// normalised to NFC, as transcript lines are, so that a unit typed in
+// decomposed form still matches. Empty strings, invalid UTF-8 and units
+// containing spaces are rejected.
 func NewInventory(units []string) (*Inventory, error) {
 	inv := &Inventory{units: make(map[string]bool, len(units))}
 	for i, u := range units {
 		if u == "" {
 			return nil, fmt.Errorf("unit %d: empty unit", i+1)
 		}
+		if !utf8.ValidString(u) {
+			return nil, fmt.Errorf("unit %d %q: %w", i+1, u, ErrInvalidUTF8)
+		}
+		u = norm.NFC.String(u)
 		for _, r := range u {
 			if r == ' ' || r == '\t' {
 				return nil, fmt.Errorf("unit %d %q: contains white space", i+1, u)
@@ -75,13 +98,14 @@ func (inv *Inventory) match(s string) int {
 }
 
 // defaultUnitLen returns the byte length of the default unit at the start
-// of s: one character with every character that attaches to it.
+// of s: one character with every character that attaches to it. A tie bar
+// does not reach across a space or tab, which would put white space inside
+// a unit.
 func defaultUnitLen(s string) int {
-	_, n := utf8.DecodeRuneInString(s)
-	prev := rune(0)
+	prev, n := utf8.DecodeRuneInString(s)
 	for n < len(s) {
 		r, size := utf8.DecodeRuneInString(s[n:])
-		if !attaches(r) && !joinsNext(prev) {
+		if !attaches(r) && !(joinsNext(prev) && r != ' ' && r != '\t') {
 			break
 		}
 		prev = r
