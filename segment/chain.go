@@ -88,14 +88,19 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 	rng := blockRand(cfg.Seed, st.Index, block)
 	seg := &Segmentation{Corpus: c, Boundary: st.Boundary}
 	m := newModel(c, cfg, st.Hyper)
-	g := NewWordsGibbs(seg, m, rng)
+	var g sampler
+	if cfg.Sampler == "blocked" {
+		g = NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
+	} else {
+		g = NewWordsGibbs(seg, m, rng)
+	}
 	stop := min(cfg.Iterations, (block+1)*cfg.Block)
 	for st.Iteration < stop {
 		if err := ctx.Err(); err != nil {
 			return err
 		}
 		temp := cfg.temperature(st.Iteration)
-		g.accepts, g.steps = 0, 0
+		g.resetRate()
 		g.Sweep(temp, rng)
 		m.SampleHyperparameters(cfg.Fixed, rng)
 		st.Iteration++
@@ -116,6 +121,16 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 	st.Hyper = m.hyper()
 	return nil
 }
+
+// sampler is what a chain needs of a sampler.
+type sampler interface {
+	Sweep(temperature float64, rng *rand.Rand)
+	AcceptanceRate() float64
+	resetRate()
+}
+
+func (g *WordsGibbs) resetRate()     { g.accepts, g.steps = 0, 0 }
+func (g *BlockedSampler) resetRate() { g.accepts, g.steps = 0, 0 }
 
 // temperature returns the temperature of iteration k: the schedule runs
 // over the burn-in and sampling after it is at temperature 1.

@@ -11,6 +11,12 @@ import (
 type Config struct {
 	// Model names the word model: "unigram" or "bigram".
 	Model string `json:"model"`
+	// Sampler names the sampler: "boundary" (one gap at a time) or
+	// "blocked" (one utterance at a time).
+	Sampler string `json:"sampler"`
+	// MaxWordLength caps the words the blocked sampler proposes, in units
+	// (0: no cap).
+	MaxWordLength int `json:"max_word_length"`
 	// Iterations is the number of sweeps over the corpus per chain.
 	Iterations int `json:"iterations"`
 	// Burnin is the number of sweeps before samples are kept; the
@@ -51,7 +57,7 @@ type Config struct {
 // rho = 2; for the bigram model alpha0 = 3000 and alpha1 = 100 are
 // better starts), every hyperparameter sampled.
 func DefaultConfig() Config {
-	return Config{Model: "unigram", Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
+	return Config{Model: "unigram", Sampler: "boundary", MaxWordLength: 24, Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
 		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1}
 }
 
@@ -60,6 +66,10 @@ func (cfg Config) Validate() error {
 	switch {
 	case cfg.Model != "unigram" && cfg.Model != "bigram":
 		return fmt.Errorf("unknown model %q (want unigram or bigram)", cfg.Model)
+	case cfg.Sampler != "boundary" && cfg.Sampler != "blocked":
+		return fmt.Errorf("unknown sampler %q (want boundary or blocked)", cfg.Sampler)
+	case cfg.MaxWordLength < 0:
+		return fmt.Errorf("maximum word length must be 0 (none) or positive, got %d", cfg.MaxWordLength)
 	case cfg.Iterations < 1:
 		return fmt.Errorf("iterations must be at least 1, got %d", cfg.Iterations)
 	case cfg.Burnin < 0 || cfg.Burnin >= cfg.Iterations:

@@ -1,0 +1,73 @@
+package segment_test
+
+import (
+	"fmt"
+	"math/rand/v2"
+	"testing"
+
+	. "github.com/juncture-project/juncture/segment"
+	"github.com/juncture-project/juncture/segment/exact"
+)
+
+type blockedChain struct {
+	g   *BlockedSampler
+	rng *rand.Rand
+}
+
+func (c *blockedChain) Step()                  { c.g.Sweep(1, c.rng) }
+func (c *blockedChain) Current() *Segmentation { return c.g.Seg }
+
+// TestBlockedExactPosterior runs the blocked sampler through the exact
+// posterior harness for both orders, with and without discounts, with and
+// without a word-length limit (the limit truncates the model: the exact
+// posterior is then renormalised over segmentations within it).
+func TestBlockedExactPosterior(t *testing.T) {
+	cases := []struct {
+		lines   []string
+		order   int
+		uni, bi PitmanYor
+		maxLen  int
+	}{
+		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0, 2}, PitmanYor{}, 0},
+		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0.5, 1}, PitmanYor{}, 0},
+		{[]string{"aaaa", "aa"}, 1, PitmanYor{0.3, 0.5}, PitmanYor{}, 2},
+		{[]string{"abab", "ab"}, 2, PitmanYor{0, 1}, PitmanYor{0, 1}, 0},
+		{[]string{"aab", "ab"}, 2, PitmanYor{0.5, 1}, PitmanYor{0.3, 2}, 0},
+		{[]string{"abba", "ba"}, 2, PitmanYor{0.2, 3}, PitmanYor{0.6, 0.5}, 3},
+	}
+	for i, tc := range cases {
+		t.Run(fmt.Sprint(i), func(t *testing.T) {
+			c := tinyCorpus(t, tc.lines...)
+			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
+			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
+			post := exact.Posterior(c, func(s *Segmentation) float64 {
+				if tc.maxLen > 0 && longestWord(s) > tc.maxLen {
+					return -1e300
+				}
+				return m.ExactLogJoint(s)
+			})
+			for k, p := range post {
+				if p < 1e-200 {
+					delete(post, k)
+				}
+			}
+			rng := rand.New(rand.NewPCG(uint64(i), 11))
+			seg := RandomSegmentation(c, 1, rng) // every gap a boundary: within any limit
+			g := NewBlockedSampler(seg, m, tc.maxLen, rng)
+			counts := exact.Sample(&blockedChain{g, rng}, 100, 5, 20000)
+			r := exact.ChiSquare(post, counts)
+			if r.P < 1e-3 {
+				t.Errorf("sampled segmentations differ from the exact posterior: %v", r)
+			}
+			t.Logf("%v (acceptance %.2f)", r, g.AcceptanceRate())
+		})
+	}
+}
+
+func longestWord(s *Segmentation) int {
+	n := 0
+	for u := 0; u < s.Corpus.Len(); u++ {
+		s.Words(u, func(a, b int) { n = max(n, b-a) })
+	}
+	return n
+}
