@@ -102,7 +102,9 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 		temp := cfg.temperature(st.Iteration)
 		g.resetRate()
 		g.Sweep(temp, rng)
-		m.SampleHyperparameters(cfg.Fixed, rng)
+		if temp == 1 {
+			m.SampleHyperparameters(cfg.Fixed, rng)
+		}
 		st.Iteration++
 		if st.Iteration > cfg.Burnin {
 			for i, b := range seg.Boundary {
