@@ -27,6 +27,9 @@ type restaurants struct {
 	dishes    []WordType // dishes[i] is the dish of seats[i]
 	customers []int32    // by context
 	tables    []int32    // by context
+	// changes counts seating changes, undone ones included, so that a
+	// cache of predictive probabilities can tell when it is stale.
+	changes uint64
 }
 
 func newRestaurants(p *PitmanYor) *restaurants {
@@ -62,10 +65,15 @@ func (r *restaurants) totals(ctx int32) (customers, tables float64) {
 	return float64(r.customers[ctx]), float64(r.tables[ctx])
 }
 
-// logPredictive returns log P(w | ctx) given log P_parent(w).
+// logPredictive returns log P(w | ctx) given log P_parent(w). An empty
+// restaurant passes the parent's probability through (the formula's limit,
+// also when a = 0).
 func (r *restaurants) logPredictive(ctx int32, w WordType, logParent float64) float64 {
 	d, a := r.params.Discount, r.params.Concentration
 	c, t := r.totals(ctx)
+	if c == 0 {
+		return logParent
+	}
 	lNew := math.Log(a+d*t) + logParent
 	if ds := r.seating(ctx, w, false); ds != nil && ds.customers > 0 {
 		lNew = logAddExp(math.Log(float64(ds.customers)-d*float64(ds.tables)), lNew)
@@ -111,6 +119,7 @@ func (r *restaurants) remove(ctx int32, w WordType, rng *rand.Rand, j *journal) 
 // seatAt adds a customer to a table of the given size (0: a new table).
 func (r *restaurants) seatAt(ctx int32, ds *dishSeating, size int32) {
 	ds.addToSize(size)
+	r.changes++
 	r.customers[ctx]++
 	if size == 0 {
 		r.tables[ctx]++
@@ -120,6 +129,7 @@ func (r *restaurants) seatAt(ctx int32, ds *dishSeating, size int32) {
 // unseatAt removes a customer from a table of the given size.
 func (r *restaurants) unseatAt(ctx int32, ds *dishSeating, size int32) {
 	ds.removeFromSize(size)
+	r.changes++
 	r.customers[ctx]--
 	if size == 1 {
 		r.tables[ctx]--

@@ -1,6 +1,7 @@
 package segment
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 )
@@ -21,6 +22,10 @@ const End WordType = -1
 // probability that has a Beta(Rho/2, Rho/2) prior, integrated out; in Order
 // 2 the boundary word End is a dish like any other, with base probability
 // EndBase, and the other words share the rest: (1-EndBase) P0(w).
+//
+// Base may be adaptive (an *NgramBase): its own customers are the units of
+// the dishes of the unigram-level tables, seated when a table opens and
+// removed when it closes, so P0 is read from the base's current state.
 type Words struct {
 	Order   int
 	Unigram PitmanYor // alpha0 and d0 of G0
@@ -35,6 +40,10 @@ type Words struct {
 	uni, bi    *restaurants
 	tokens     int // word tokens, End excluded
 	utterances int
+
+	// baseStamp[w] is 1 + the adaptive base's version when
+	// Types.LogBase[w] was computed; 0 means never.
+	baseStamp []uint64
 }
 
 // NewWords returns an empty model of the given order over c's words.
@@ -50,24 +59,66 @@ func NewWords(c *Corpus, order int, uni, bi PitmanYor, base Base) *Words {
 }
 
 // Intern returns the type of span [start, end), computing its base
-// probability the first time it is seen.
+// probability the first time it is seen (with an adaptive base, when it is
+// first needed).
 func (m *Words) Intern(start, end int) WordType {
 	id, isNew := m.Types.Intern(m.Corpus, start, end)
-	if isNew {
+	if isNew && m.ngram() == nil {
 		m.Types.LogBase[id] = m.Base.LogProb(m.Corpus, start, end)
 	}
 	return id
 }
 
-// logBase returns log P0 of w as the unigram level sees it.
-func (m *Words) logBase(w WordType) float64 {
-	if m.Order == 1 {
+// ngram returns the base if it is an adaptive unit model, else nil.
+func (m *Words) ngram() *NgramBase {
+	nb, _ := m.Base.(*NgramBase)
+	return nb
+}
+
+// span returns a corpus span holding word w.
+func (m *Words) span(w WordType) (start, end int) {
+	s := int(m.Types.First[w])
+	return s, s + int(m.Types.Length[w])
+}
+
+// logP0 returns log P0(w) for a word other than End. With an adaptive base
+// it is the base's current predictive probability, cached in
+// Types.LogBase until the base changes.
+func (m *Words) logP0(w WordType) float64 {
+	nb := m.ngram()
+	if nb == nil {
 		return m.Types.LogBase[w]
 	}
-	if w == End {
+	for len(m.baseStamp) < m.Types.Len() {
+		m.baseStamp = append(m.baseStamp, 0)
+	}
+	if v := nb.version() + 1; m.baseStamp[w] != v {
+		s, e := m.span(w)
+		m.Types.LogBase[w] = nb.LogProb(m.Corpus, s, e)
+		m.baseStamp[w] = v
+	}
+	return m.Types.LogBase[w]
+}
+
+// logShare returns the log of the share of the unigram level's base that
+// goes to w's kind of word: 1 in Order 1; EndBase for End and 1-EndBase
+// for the others in Order 2.
+func (m *Words) logShare(w WordType) float64 {
+	switch {
+	case m.Order == 1:
+		return 0
+	case w == End:
 		return math.Log(m.EndBase)
 	}
-	return math.Log1p(-m.EndBase) + m.Types.LogBase[w]
+	return math.Log1p(-m.EndBase)
+}
+
+// logBase returns log P0 of w as the unigram level sees it.
+func (m *Words) logBase(w WordType) float64 {
+	if w == End {
+		return m.logShare(w)
+	}
+	return m.logShare(w) + m.logP0(w)
 }
 
 func contextOf(prev WordType) int32 { return int32(prev) + 1 } // End -> 0
@@ -87,7 +138,8 @@ func (m *Words) LogPredictive(prev, w WordType) float64 {
 }
 
 // add seats one token of w after prev and returns its log predictive
-// probability just before it was added.
+// probability just before it was added, times the adaptive base's
+// correction if a unigram-level table opened (see addBase).
 func (m *Words) add(prev, w WordType, rng *rand.Rand, j *journal) float64 {
 	if w != End {
 		m.tokens++
@@ -95,41 +147,78 @@ func (m *Words) add(prev, w WordType, rng *rand.Rand, j *journal) float64 {
 	lu := m.logUnigram(w)
 	if m.Order == 1 {
 		if m.uni.add(0, w, m.logBase(w), rng, j) {
-			m.addBase(w)
+			lu += m.addBase(w, rng, j)
 		}
 		return lu
 	}
 	ctx := contextOf(prev)
 	lp := m.bi.logPredictive(ctx, w, lu)
 	if m.bi.add(ctx, w, lu, rng, j) && m.uni.add(0, w, m.logBase(w), rng, j) {
-		m.addBase(w)
+		lp += m.addBase(w, rng, j)
 	}
 	return lp
 }
 
 // remove takes away one token of w after prev and returns its log
-// predictive probability just after it was removed.
+// predictive probability just after it was removed, times the adaptive
+// base's correction if a unigram-level table closed (see removeBase): the
+// value add would return for the same token and seating.
 func (m *Words) remove(prev, w WordType, rng *rand.Rand, j *journal) float64 {
 	if w != End {
 		m.tokens--
 	}
 	if m.Order == 1 {
+		corr := 0.0
 		if m.uni.remove(0, w, rng, j) {
-			m.removeBase(w)
+			corr = m.removeBase(w, rng, j)
 		}
-		return m.logUnigram(w)
+		return m.logUnigram(w) + corr
 	}
 	ctx := contextOf(prev)
+	corr := 0.0
 	if m.bi.remove(ctx, w, rng, j) && m.uni.remove(0, w, rng, j) {
-		m.removeBase(w)
+		corr = m.removeBase(w, rng, j)
 	}
-	return m.LogPredictive(prev, w)
+	return m.LogPredictive(prev, w) + corr
 }
 
-// addBase and removeBase tell an adaptive base about tables opened and
-// closed at the unigram level. The uniform base needs no counts.
-func (m *Words) addBase(w WordType)    {}
-func (m *Words) removeBase(w WordType) {}
+// addBase tells an adaptive base that a unigram-level table of w has
+// opened: w's units become its customers, seated through j. The uniform
+// base needs no counts.
+//
+// It returns log(P0seq(w) / P0(w)). The predictive probabilities above used
+// P0(w), every unit's probability read from the state before w; but the
+// probability of generating w along the seating path taken is P0seq(w), the
+// product of each unit's probability just before it was seated, which
+// differs when w's own units share restaurants. Seating the word level with
+// P0 is then a proposal whose weight, joint over proposal probability, is
+// the word-level predictive times P0seq/P0; with these factors the
+// sampler's product of sequential terms stays the exact
+// Metropolis-Hastings ratio for the joint of segmentation and all seatings,
+// the unit customers counting as customers like the words.
+func (m *Words) addBase(w WordType, rng *rand.Rand, j *journal) float64 {
+	nb := m.ngram()
+	if nb == nil || w == End {
+		return 0
+	}
+	before := m.logP0(w)
+	s, e := m.span(w)
+	return nb.addWord(m.Corpus, s, e, rng, j) - before
+}
+
+// removeBase tells an adaptive base that a unigram-level table of w has
+// closed: w's units leave, in reverse order. It returns log(P0seq(w) /
+// P0(w)) read in reverse: the probabilities of the units as they leave,
+// over P0(w) once they have left.
+func (m *Words) removeBase(w WordType, rng *rand.Rand, j *journal) float64 {
+	nb := m.ngram()
+	if nb == nil || w == End {
+		return 0
+	}
+	s, e := m.span(w)
+	seq := nb.removeWord(m.Corpus, s, e, rng, j)
+	return seq - m.logP0(w)
+}
 
 // logEnds returns the log Beta-Bernoulli probability of the Order 1
 // utterance-end decisions for n tokens in U utterances.
@@ -142,7 +231,8 @@ func (m *Words) logEnds(n int) float64 {
 	return lbeta(U+h, float64(n)-U+h) - lbeta(h, h)
 }
 
-// AddSegmentation seats every word of s, in corpus order.
+// AddSegmentation seats every word of s, in corpus order. m must hold no
+// other words of the same utterances.
 func (m *Words) AddSegmentation(s *Segmentation, rng *rand.Rand) {
 	for u := 0; u < m.Corpus.Len(); u++ {
 		prev := End
@@ -157,18 +247,93 @@ func (m *Words) AddSegmentation(s *Segmentation, rng *rand.Rand) {
 	}
 }
 
+// RemoveSegmentation takes away every word of s, in reverse corpus order;
+// s must be a segmentation that was added.
+func (m *Words) RemoveSegmentation(s *Segmentation, rng *rand.Rand) {
+	var ws []WordType
+	for u := m.Corpus.Len() - 1; u >= 0; u-- {
+		ws = append(ws[:0], End)
+		s.Words(u, func(a, b int) { ws = append(ws, m.Intern(a, b)) })
+		if m.Order == 2 {
+			m.remove(ws[len(ws)-1], End, rng, nil)
+		}
+		for k := len(ws) - 1; k > 0; k-- {
+			m.remove(ws[k-1], ws[k], rng, nil)
+		}
+	}
+}
+
 // LogJoint returns the log probability of the segmentation together with
 // the current seating arrangement: each level's seating probability plus
 // the base probability of every unigram-level table, plus the utterance-end
-// term. It is what the sampler's traces show; see ExactLogJoint for the
+// term. With an adaptive base, a table contributes only its share of the
+// base (logShare) and the base's own seating and dishes are added instead
+// of P0. It is what the sampler's traces show; see ExactLogJoint for the
 // probability of the segmentation alone.
 func (m *Words) LogJoint() float64 {
 	lp := m.uni.logSeatingProb(m.Unigram.Discount, m.Unigram.Concentration)
 	if m.Order == 2 {
 		lp += m.bi.logSeatingProb(m.Bigram.Discount, m.Bigram.Concentration)
 	}
+	nb := m.ngram()
 	for i, w := range m.uni.dishes { // slice order: reproducible sums
-		lp += float64(m.uni.seats[i].tables) * m.logBase(w)
+		if t := m.uni.seats[i].tables; t > 0 {
+			if nb != nil {
+				lp += float64(t) * m.logShare(w)
+			} else {
+				lp += float64(t) * m.logBase(w)
+			}
+		}
+	}
+	if nb != nil {
+		lp += nb.logJoint()
 	}
 	return lp + m.logEnds(m.tokens)
+}
+
+// Check verifies the seating's invariants: each level's histograms agree
+// with its totals, the unigram level's customers of each word are its
+// tables at the bigram level (Order 2), the token count matches, and an
+// adaptive base is consistent and seats exactly the units of the
+// unigram-level tables' words. Tests call it after mutations.
+func (m *Words) Check() error {
+	if err := m.uni.check(); err != nil {
+		return fmt.Errorf("unigram level: %w", err)
+	}
+	words := m.uni
+	if m.Order == 2 {
+		if err := m.bi.check(); err != nil {
+			return fmt.Errorf("bigram level: %w", err)
+		}
+		want := map[uint64]int32{}
+		m.bi.forEach(func(_ int32, w WordType, ds *dishSeating) { want[seatKey(0, w)] += ds.tables })
+		if err := m.uni.checkCustomers(want); err != nil {
+			return fmt.Errorf("unigram level against the bigram tables: %w", err)
+		}
+		words = m.bi
+	}
+	tokens := 0
+	words.forEach(func(_ int32, w WordType, ds *dishSeating) {
+		if w != End {
+			tokens += int(ds.customers)
+		}
+	})
+	if tokens != m.tokens {
+		return fmt.Errorf("%d word customers, token count %d", tokens, m.tokens)
+	}
+	nb := m.ngram()
+	if nb == nil {
+		return nil
+	}
+	if err := nb.Check(); err != nil {
+		return err
+	}
+	return nb.checkWords(m.Corpus, func(f func(start, end int, tables int32)) {
+		m.uni.forEach(func(_ int32, w WordType, ds *dishSeating) {
+			if w != End && ds.tables > 0 {
+				s, e := m.span(w)
+				f(s, e, ds.tables)
+			}
+		})
+	})
 }

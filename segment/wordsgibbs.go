@@ -21,6 +21,9 @@ import (
 // distribution of segmentation and seating invariant; for a binary choice
 // this Metropolised Gibbs step mixes at least as well as Gibbs sampling
 // (Liu 1996, "Peskun's theorem and a modified discrete-state Gibbs sampler").
+// With an adaptive base (NgramBase) the units of a word whose unigram-level
+// table opens or closes are customers too, and their sequential
+// probabilities enter the products (see Words.addBase).
 type WordsGibbs struct {
 	Seg   *Segmentation
 	Model *Words
