@@ -13,6 +13,8 @@ type Hyper struct {
 	Discount0 float64 `json:"discount0"`
 	Discount1 float64 `json:"discount1"`
 	WordEnd   float64 `json:"word_end"`
+	// Ngram holds the character model's levels when the base is "ngram".
+	Ngram []PitmanYor `json:"ngram,omitempty"`
 }
 
 // TracePoint records one iteration of a chain.
@@ -66,7 +68,14 @@ func newModel(c *Corpus, cfg Config, h Hyper) *Words {
 	if cfg.Model == "bigram" {
 		order = 2
 	}
-	base := UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory))}
+	var base Base = UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory))}
+	if cfg.Base == "ngram" {
+		levels := h.Ngram
+		if len(levels) != cfg.NgramOrder {
+			levels = DefaultNgramLevels(cfg.NgramOrder)
+		}
+		base = NewNgramBase(max(1, len(c.Inventory)), cfg.NgramOrder, append([]PitmanYor(nil), levels...))
+	}
 	m := NewWords(c, order, PitmanYor{h.Discount0, h.Alpha0}, PitmanYor{h.Discount1, h.Alpha1}, base)
 	m.Rho = cfg.Rho
 	return m
@@ -75,8 +84,11 @@ func newModel(c *Corpus, cfg Config, h Hyper) *Words {
 func (m *Words) hyper() Hyper {
 	h := Hyper{Alpha0: m.Unigram.Concentration, Alpha1: m.Bigram.Concentration,
 		Discount0: m.Unigram.Discount, Discount1: m.Bigram.Discount}
-	if ub, ok := m.Base.(UniformBase); ok {
-		h.WordEnd = ub.WordEnd
+	switch b := m.Base.(type) {
+	case UniformBase:
+		h.WordEnd = b.WordEnd
+	case *NgramBase:
+		h.Ngram = append([]PitmanYor(nil), b.Levels...)
 	}
 	return h
 }

@@ -114,8 +114,15 @@ func (m *Words) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 	if m.Order == 2 {
 		sampleLevel(m.bi, &m.Bigram, fixed.Discount1, fixed.Alpha1, rng)
 	}
-	if ub, ok := m.Base.(UniformBase); ok && !fixed.WordEnd {
-		m.sampleWordEnd(ub, rng)
+	switch b := m.Base.(type) {
+	case UniformBase:
+		if !fixed.WordEnd {
+			m.sampleWordEnd(b, rng)
+		}
+	case *NgramBase:
+		for k, r := range b.levels {
+			sampleLevel(r, &b.Levels[k], false, false, rng)
+		}
 	}
 }
 

@@ -11,6 +11,12 @@ import (
 type Config struct {
 	// Model names the word model: "unigram" or "bigram".
 	Model string `json:"model"`
+	// Base names the base distribution over word forms: "uniform" (every
+	// unit equally likely, a geometric length) or "ngram" (a hierarchical
+	// Pitman-Yor model over units that learns the phonotactics).
+	Base string `json:"base"`
+	// NgramOrder is the order of the "ngram" base.
+	NgramOrder int `json:"ngram_order,omitempty"`
 	// Sampler names the sampler: "boundary" (one gap at a time) or
 	// "blocked" (one utterance at a time).
 	Sampler string `json:"sampler"`
@@ -57,7 +63,7 @@ type Config struct {
 // rho = 2; for the bigram model alpha0 = 3000 and alpha1 = 100 are
 // better starts), every hyperparameter sampled.
 func DefaultConfig() Config {
-	return Config{Model: "unigram", Sampler: "boundary", MaxWordLength: 24, Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
+	return Config{Model: "unigram", Base: "uniform", NgramOrder: 3, Sampler: "boundary", MaxWordLength: 24, Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
 		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1}
 }
 
@@ -66,6 +72,10 @@ func (cfg Config) Validate() error {
 	switch {
 	case cfg.Model != "unigram" && cfg.Model != "bigram":
 		return fmt.Errorf("unknown model %q (want unigram or bigram)", cfg.Model)
+	case cfg.Base != "uniform" && cfg.Base != "ngram":
+		return fmt.Errorf("unknown base %q (want uniform or ngram)", cfg.Base)
+	case cfg.Base == "ngram" && (cfg.NgramOrder < 1 || cfg.NgramOrder > 8):
+		return fmt.Errorf("n-gram order must be 1 to 8, got %d", cfg.NgramOrder)
 	case cfg.Sampler != "boundary" && cfg.Sampler != "blocked":
 		return fmt.Errorf("unknown sampler %q (want boundary or blocked)", cfg.Sampler)
 	case cfg.MaxWordLength < 0:

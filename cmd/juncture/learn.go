@@ -30,6 +30,8 @@ func learnCommand() *cli.Command {
 			"   juncture learn --model bigram --chains 2 --posteriors gaps.tsv transcripts.txt",
 		Flags: append([]cli.Flag{
 			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, or bigram (hierarchical: each word's successors back off to the unigram)"},
+			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
+			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time) or blocked (one utterance at a time, forward filtering and backward sampling)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},
@@ -59,6 +61,8 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	if cfg.Model == "bigram" {
 		cfg.Alpha0 = 3000
 	}
+	cfg.Base = ctx.String("base")
+	cfg.NgramOrder = ctx.Int("ngram-order")
 	cfg.Sampler = ctx.String("sampler")
 	cfg.MaxWordLength = ctx.Int("max-word-length")
 	cfg.Iterations = ctx.Int("iterations")
@@ -94,7 +98,7 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "sampler", "max-word-length", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
