@@ -21,8 +21,12 @@ type PitmanYor struct {
 //
 // where c counts customers and t tables.
 type restaurants struct {
-	params    *PitmanYor
-	index     map[uint64]int32 // (context, dish) -> seats
+	params *PitmanYor
+	index  map[uint64]int32 // (context, dish) -> seats
+	// first has the seats of context 0, indexed by dish+1, so the most
+	// used restaurant (the unigram level's only one) needs no hashing;
+	// -1 where absent.
+	first     []int32
 	seats     []dishSeating
 	dishes    []WordType // dishes[i] is the dish of seats[i]
 	customers []int32    // by context
@@ -41,18 +45,28 @@ func seatKey(ctx int32, w WordType) uint64 { return uint64(uint32(ctx))<<32 | ui
 // seating returns the seating of dish w in context ctx, creating it if
 // create is set; nil if absent and not created.
 func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
-	k := seatKey(ctx, w)
-	if i, ok := r.index[k]; ok {
+	if ctx == 0 {
+		if d := int(w) + 1; d < len(r.first) && r.first[d] >= 0 {
+			return &r.seats[r.first[d]]
+		}
+	} else if i, ok := r.index[seatKey(ctx, w)]; ok {
 		return &r.seats[i]
 	}
 	if !create {
 		return nil
 	}
+	k := seatKey(ctx, w)
 	for int(ctx) >= len(r.customers) {
 		r.customers = append(r.customers, 0)
 		r.tables = append(r.tables, 0)
 	}
 	r.index[k] = int32(len(r.seats))
+	if ctx == 0 {
+		for int(w)+1 >= len(r.first) {
+			r.first = append(r.first, -1)
+		}
+		r.first[w+1] = int32(len(r.seats))
+	}
 	r.seats = append(r.seats, dishSeating{})
 	r.dishes = append(r.dishes, w)
 	return &r.seats[len(r.seats)-1]
@@ -114,6 +128,51 @@ func (r *restaurants) remove(ctx int32, w WordType, rng *rand.Rand, j *journal) 
 	r.unseatAt(ctx, ds, size)
 	j.push(r, ctx, w, size, false)
 	return size == 1
+}
+
+// addCustomer seats a customer of dish w in context ctx, like add, and
+// also returns the predictive probability P(w | ctx) just before, given
+// the parent's probability: one lookup for both.
+func (r *restaurants) addCustomer(ctx int32, w WordType, parent float64, rng *rand.Rand, j *journal) (p float64, newTable bool) {
+	d, a := r.params.Discount, r.params.Concentration
+	ds := r.seating(ctx, w, true)
+	c, t := r.totals(ctx)
+	join := float64(ds.customers) - d*float64(ds.tables)
+	pNew := (a + d*t) * parent
+	p = parent
+	if c > 0 {
+		p = (join + pNew) / (c + a)
+	}
+	var size int32
+	if join > 0 && rng.Float64()*(join+pNew) < join {
+		size = ds.pickJoin(d, rng.Float64()*join)
+	}
+	r.seatAt(ctx, ds, size)
+	j.push(r, ctx, w, size, true)
+	return p, size == 0
+}
+
+// removeCustomer takes away a customer of dish w in context ctx, like
+// remove, and returns the seating it left for predictiveAt.
+func (r *restaurants) removeCustomer(ctx int32, w WordType, rng *rand.Rand, j *journal) (ds *dishSeating, closed bool) {
+	ds = r.seating(ctx, w, false)
+	if ds == nil || ds.customers == 0 {
+		panic("segment: remove of an absent customer")
+	}
+	size := ds.pickLeave(rng)
+	r.unseatAt(ctx, ds, size)
+	j.push(r, ctx, w, size, false)
+	return ds, size == 1
+}
+
+// predictiveAt returns P(w | ctx) for the dish whose seating is ds.
+func (r *restaurants) predictiveAt(ctx int32, ds *dishSeating, parent float64) float64 {
+	c, t := r.totals(ctx)
+	if c == 0 {
+		return parent
+	}
+	d, a := r.params.Discount, r.params.Concentration
+	return (float64(ds.customers) - d*float64(ds.tables) + (a+d*t)*parent) / (c + a)
 }
 
 // seatAt adds a customer to a table of the given size (0: a new table).

@@ -139,22 +139,30 @@ func (m *Words) LogPredictive(prev, w WordType) float64 {
 
 // add seats one token of w after prev and returns its log predictive
 // probability just before it was added, times the adaptive base's
-// correction if a unigram-level table opened (see addBase).
+// correction if a unigram-level table opened (see addBase). Probabilities
+// are multiplied in linear space and logged once: a base probability that
+// underflows (a word of a few hundred units) gives -Inf, which a sampler
+// treats as impossible.
 func (m *Words) add(prev, w WordType, rng *rand.Rand, j *journal) float64 {
 	if w != End {
 		m.tokens++
 	}
-	lu := m.logUnigram(w)
+	pb := math.Exp(m.logBase(w))
 	if m.Order == 1 {
-		if m.uni.add(0, w, m.logBase(w), rng, j) {
-			lu += m.addBase(w, rng, j)
+		p, opened := m.uni.addCustomer(0, w, pb, rng, j)
+		lp := math.Log(p)
+		if opened {
+			lp += m.addBase(w, rng, j)
 		}
-		return lu
+		return lp
 	}
 	ctx := contextOf(prev)
-	lp := m.bi.logPredictive(ctx, w, lu)
-	if m.bi.add(ctx, w, lu, rng, j) && m.uni.add(0, w, m.logBase(w), rng, j) {
-		lp += m.addBase(w, rng, j)
+	p, opened := m.bi.addCustomer(ctx, w, m.uni.predictive(0, w, pb), rng, j)
+	lp := math.Log(p)
+	if opened {
+		if _, opened0 := m.uni.addCustomer(0, w, pb, rng, j); opened0 {
+			lp += m.addBase(w, rng, j)
+		}
 	}
 	return lp
 }
@@ -168,18 +176,23 @@ func (m *Words) remove(prev, w WordType, rng *rand.Rand, j *journal) float64 {
 		m.tokens--
 	}
 	if m.Order == 1 {
+		ds, closed := m.uni.removeCustomer(0, w, rng, j)
 		corr := 0.0
-		if m.uni.remove(0, w, rng, j) {
+		if closed {
 			corr = m.removeBase(w, rng, j)
 		}
-		return m.logUnigram(w) + corr
+		return math.Log(m.uni.predictiveAt(0, ds, math.Exp(m.logBase(w)))) + corr
 	}
 	ctx := contextOf(prev)
+	ds, closed := m.bi.removeCustomer(ctx, w, rng, j)
 	corr := 0.0
-	if m.bi.remove(ctx, w, rng, j) && m.uni.remove(0, w, rng, j) {
-		corr = m.removeBase(w, rng, j)
+	if closed {
+		if _, closed0 := m.uni.removeCustomer(0, w, rng, j); closed0 {
+			corr = m.removeBase(w, rng, j)
+		}
 	}
-	return m.LogPredictive(prev, w) + corr
+	pu := m.uni.predictive(0, w, math.Exp(m.logBase(w)))
+	return math.Log(m.bi.predictiveAt(ctx, ds, pu)) + corr
 }
 
 // addBase tells an adaptive base that a unigram-level table of w has
