@@ -48,3 +48,23 @@ func benchmarkSweep(b *testing.B, order int, d float64) {
 func BenchmarkSweepUnigram(b *testing.B)  { benchmarkSweep(b, 1, 0) }
 func BenchmarkSweepBigram(b *testing.B)   { benchmarkSweep(b, 2, 0) }
 func BenchmarkSweepBigramPY(b *testing.B) { benchmarkSweep(b, 2, 0.3) }
+
+// benchmarkBlocked measures one blocked sweep (whole utterances).
+func benchmarkBlocked(b *testing.B, order, maxLen int) {
+	c := benchCorpus(b)
+	rng := rand.New(rand.NewPCG(1, 2))
+	m := NewWords(c, order, PitmanYor{0, 1000}, PitmanYor{0, 100}, UniformBase{WordEnd: 0.5, Units: len(c.Inventory)})
+	g := NewBlockedSampler(RandomSegmentation(c, 0.3, rng), m, maxLen, rng)
+	for i := 0; i < 2; i++ {
+		g.Sweep(1, rng)
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		g.Sweep(1, rng)
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(c.Units)), "ns/unit")
+}
+
+func BenchmarkBlockedUnigram(b *testing.B) { benchmarkBlocked(b, 1, 16) }
+func BenchmarkBlockedBigram(b *testing.B)  { benchmarkBlocked(b, 2, 16) }

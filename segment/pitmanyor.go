@@ -28,9 +28,10 @@ type restaurants struct {
 	// -1 where absent.
 	first     []int32
 	seats     []dishSeating
-	dishes    []WordType // dishes[i] is the dish of seats[i]
-	customers []int32    // by context
-	tables    []int32    // by context
+	dishes    []WordType  // dishes[i] is the dish of seats[i]
+	customers []int32     // by context
+	tables    []int32     // by context
+	slab      []sizeCount // spare histogram room for new dishes
 	// changes counts seating changes, undone ones included, so that a
 	// cache of predictive probabilities can tell when it is stale.
 	changes uint64
@@ -67,7 +68,13 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		}
 		r.first[w+1] = int32(len(r.seats))
 	}
-	r.seats = append(r.seats, dishSeating{})
+	if len(r.slab) < 2 {
+		r.slab = make([]sizeCount, 4096)
+	}
+	// Most dishes never have more than two table sizes: give each room
+	// for two from a shared slab, so creating a dish seldom allocates.
+	r.seats = append(r.seats, dishSeating{hist: r.slab[:0:2]})
+	r.slab = r.slab[2:]
 	r.dishes = append(r.dishes, w)
 	return &r.seats[len(r.seats)-1]
 }

@@ -1,13 +1,19 @@
 package segment
 
+import (
+	"bytes"
+	"hash/maphash"
+)
+
 // WordType is an interned word: an index into a Types table.
 type WordType int32
 
-// Types interns word types by their unit sequence. Looking up a known type
-// does not allocate; a new type allocates its key once and keeps its ID for
-// the life of the table, so IDs stay valid while counts come and go.
+// Types interns word types by their unit sequence. A type is found by a
+// hash of its span of the corpus's unit keys in an open-addressing table
+// whose entries are checked against the span itself, so neither looking up
+// nor adding a type allocates (beyond amortised growth of the table).
+// Types are never removed, so IDs stay valid while counts come and go.
 type Types struct {
-	ids map[string]WordType
 	// Length[t] is the length of type t in units.
 	Length []int32
 	// First[t] is a position in the corpus where type t was first seen,
@@ -16,32 +22,89 @@ type Types struct {
 	// LogBase[t] is the log base probability of type t, filled by the model
 	// that owns the table.
 	LogBase []float64
+
+	hashes []uint64 // hashes[t]: hash of type t's key
+	slots  []int32  // open addressing: type+1, or 0 for empty
+	corpus *Corpus  // the corpus whose spans First points into
 }
 
+// typeSeed makes hashes differ between processes, which only changes the
+// table's layout, never the IDs given out.
+var typeSeed = maphash.MakeSeed()
+
 // NewTypes returns an empty table.
-func NewTypes() *Types { return &Types{ids: make(map[string]WordType)} }
+func NewTypes() *Types { return &Types{slots: make([]int32, 64)} }
 
 // Len returns the number of types ever interned.
 func (t *Types) Len() int { return len(t.Length) }
 
+// find returns the slot where the key with hash h is or would go, and the
+// type found there (-1 if none).
+func (t *Types) find(c *Corpus, key []byte, h uint64) (slot int, id WordType) {
+	mask := len(t.slots) - 1
+	for i := int(h) & mask; ; i = (i + 1) & mask {
+		e := t.slots[i]
+		if e == 0 {
+			return i, -1
+		}
+		id := WordType(e - 1)
+		if t.hashes[id] == h && int(t.Length[id]) == len(key)/2 {
+			s := int(t.First[id])
+			if bytes.Equal(t.corpus.Key(s, s+int(t.Length[id])), key) {
+				return i, id
+			}
+		}
+	}
+}
+
 // Lookup returns the type of the unit span [start, end) of c, if interned.
 func (t *Types) Lookup(c *Corpus, start, end int) (WordType, bool) {
-	id, ok := t.ids[string(c.Key(start, end))]
-	return id, ok
+	if t.corpus == nil {
+		return -1, false
+	}
+	key := c.Key(start, end)
+	_, id := t.find(c, key, maphash.Bytes(typeSeed, key))
+	return id, id >= 0
 }
 
 // Intern returns the type of the unit span [start, end) of c, adding it if
-// new. The second result reports whether it was new.
+// new. The second result reports whether it was new. All spans interned in
+// one table must come from the same corpus.
 func (t *Types) Intern(c *Corpus, start, end int) (WordType, bool) {
-	if id, ok := t.ids[string(c.Key(start, end))]; ok {
+	if t.corpus == nil {
+		t.corpus = c
+	} else if t.corpus != c {
+		panic("segment: Types used with two corpora")
+	}
+	key := c.Key(start, end)
+	h := maphash.Bytes(typeSeed, key)
+	slot, id := t.find(c, key, h)
+	if id >= 0 {
 		return id, false
 	}
-	id := WordType(len(t.Length))
-	t.ids[string(c.Key(start, end))] = id
+	id = WordType(len(t.Length))
 	t.Length = append(t.Length, int32(end-start))
 	t.First = append(t.First, int32(start))
 	t.LogBase = append(t.LogBase, 0)
+	t.hashes = append(t.hashes, h)
+	t.slots[slot] = int32(id) + 1
+	if 2*len(t.Length) > len(t.slots) {
+		t.grow()
+	}
 	return id, true
+}
+
+// grow doubles the table and reinserts every type.
+func (t *Types) grow() {
+	t.slots = make([]int32, 2*len(t.slots))
+	mask := len(t.slots) - 1
+	for id, h := range t.hashes {
+		i := int(h) & mask
+		for t.slots[i] != 0 {
+			i = (i + 1) & mask
+		}
+		t.slots[i] = int32(id) + 1
+	}
 }
 
 // Text returns the text of type id in corpus c.
