@@ -1,0 +1,125 @@
+package align
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+)
+
+// TestSumsRandomMoves applies random splits and joins, with word ids old
+// and new, and checks every predicted change of log P against LogProb
+// recomputed from scratch, and the running sums against Check.
+func TestSumsRandomMoves(t *testing.T) {
+	for _, tc := range []struct {
+		beta   float64
+		noNull bool
+	}{{0, false}, {0.5, false}, {10, false}, {0.5, true}} {
+		rng := rand.New(rand.NewPCG(7, uint64(tc.beta*10)))
+		words, translations := randomCorpus(rng, 50, 30, 25, 6)
+		m := NewModel(translations, tc.beta)
+		m.NoNull = tc.noNull
+		m.Estimate(words, 5)
+		s := m.NewSums(words)
+		for step := range 5000 {
+			u := rng.IntN(len(words))
+			ws := words[u]
+			before := m.LogProb(u, ws)
+			var after []int32
+			var predicted float64
+			// Fresh ids (>= 40) are words the table has never seen.
+			if len(ws) == 1 || rng.IntN(2) == 0 {
+				i := rng.IntN(len(ws))
+				w1, w2 := int32(rng.IntN(45)), int32(rng.IntN(45))
+				after = slices.Concat(ws[:i], []int32{w1, w2}, ws[i+1:])
+				predicted = s.SplitDelta(u, ws[i], w1, w2)
+				s.Split(u, ws[i], w1, w2)
+			} else {
+				i := rng.IntN(len(ws) - 1)
+				w := int32(rng.IntN(45))
+				after = slices.Concat(ws[:i], []int32{w}, ws[i+2:])
+				predicted = s.JoinDelta(u, ws[i], ws[i+1], w)
+				s.Join(u, ws[i], ws[i+1], w)
+			}
+			words[u] = after
+			want := m.LogProb(u, after) - before
+			if math.Abs(predicted-want) > 1e-9*max(1, math.Abs(want)) {
+				t.Fatalf("beta %g NoNull %v step %d: predicted change %.15g, from scratch %.15g",
+					tc.beta, tc.noNull, step, predicted, want)
+			}
+			if got := s.LogProb(u); math.Abs(got-m.LogProb(u, after)) > 1e-9*max(1, math.Abs(got)) {
+				t.Fatalf("step %d: Sums.LogProb %.15g, from scratch %.15g", step, got, m.LogProb(u, after))
+			}
+			if s.Words(u) != len(after) {
+				t.Fatalf("step %d: %d words counted, %d", step, s.Words(u), len(after))
+			}
+		}
+		if err := s.Check(words, 1e-9); err != nil {
+			t.Errorf("beta %g: %v", tc.beta, err)
+		}
+		// Re-estimating makes the sums stale; Recompute restores them.
+		m.Estimate(words, 1)
+		s.Recompute(words)
+		if err := s.Check(words, 1e-15); err != nil {
+			t.Errorf("after Recompute: %v", err)
+		}
+	}
+}
+
+// TestSumsSet checks Set against a fresh Sums.
+func TestSumsSet(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	words, translations := randomCorpus(rng, 20, 10, 8, 5)
+	m := NewModel(translations, 1)
+	m.Estimate(words, 3)
+	s := m.NewSums(words)
+	words[4] = []int32{9, 1, 1, 50}
+	s.Set(4, words[4])
+	if err := s.Check(words, 1e-15); err != nil {
+		t.Error(err)
+	}
+}
+
+// TestSumsCheckFails makes sure Check can fail.
+func TestSumsCheckFails(t *testing.T) {
+	m := NewModel([][]string{{"a", "b"}, {"a"}}, 1)
+	words := [][]int32{{0, 1}, {0}}
+	m.Estimate(words, 2)
+	s := m.NewSums(words)
+	s.Split(0, 0, 2, 3) // words not updated to match
+	if s.Check(words, 1e-9) == nil {
+		t.Error("Check missed a word-count mismatch")
+	}
+	s = m.NewSums(words)
+	if err := s.Check([][]int32{{0, 2}, {0}}, 1e-9); err == nil {
+		t.Error("Check missed different words")
+	}
+}
+
+// TestNoAllocs checks that the sampler's hot path does not allocate.
+// AllocsPerRun counts allocations, not time.
+func TestNoAllocs(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 6))
+	words, translations := randomCorpus(rng, 30, 20, 15, 5)
+	m := NewModel(translations, 1)
+	m.Estimate(words, 3)
+	s := m.NewSums(words)
+	u := 0
+	for len(m.Tokens(u)) == 0 || len(words[u]) < 2 {
+		u++
+	}
+	ws := words[u]
+	for name, f := range map[string]func(){
+		"SplitDelta":    func() { s.SplitDelta(u, ws[0], 3, 99) },
+		"JoinDelta":     func() { s.JoinDelta(u, ws[0], ws[1], 7) },
+		"Split+Join":    func() { s.Split(u, ws[0], 3, 99); s.Join(u, 3, 99, ws[0]) },
+		"Sums.LogProb":  func() { s.LogProb(u) },
+		"Set":           func() { s.Set(u, ws) },
+		"Model.LogProb": func() { m.LogProb(u, ws) },
+		"Prob":          func() { m.Prob(m.Tokens(u)[0], ws[0]) },
+	} {
+		if n := testing.AllocsPerRun(100, f); n != 0 {
+			t.Errorf("%s: %v allocations per call", name, n)
+		}
+	}
+}
