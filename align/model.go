@@ -47,6 +47,12 @@ type Model struct {
 	// word of its utterance, and the normaliser is 1/k. This is Model 1 as
 	// some textbooks first present it, kept for comparison.
 	NoNull bool
+	// MinOccurrences, when above zero, makes words seen fewer times by the
+	// last Estimate predict only the background p(e): a word seen once
+	// would otherwise claim its own utterance's translation tokens (its
+	// counts come from that very utterance) and reward any segmentation
+	// that makes chunks unique. Only well-attested words speak.
+	MinOccurrences int
 
 	vocab  []string // vocab[e] is the token with id e
 	ids    map[string]int32
@@ -232,6 +238,9 @@ func (m *Model) column(w int32) column {
 	}
 	i := int(w) + 1
 	if i >= len(m.total) || m.total[i] == 0 {
+		return column{w: w}
+	}
+	if w != Null && m.MinOccurrences > 0 && m.Occurrences(w) < m.MinOccurrences {
 		return column{w: w}
 	}
 	return column{w: w, seen: true, denom: m.total[i] + m.Beta}

@@ -6,6 +6,7 @@ package lexicon
 import (
 	"sort"
 
+	"github.com/juncture-project/juncture/align"
 	"github.com/juncture-project/juncture/segment"
 )
 
@@ -24,6 +25,9 @@ type Entry struct {
 	Confidence float64 `json:"confidence"`
 	// Lines are source line numbers of the first MaxExamples tokens.
 	Lines []int `json:"lines"`
+	// Glosses are the translation words most associated with the word,
+	// best first (see AddGlosses); none without enough evidence.
+	Glosses []align.Gloss `json:"glosses,omitempty"`
 }
 
 // Build returns the lexicon of seg, most frequent first (ties by form).

@@ -25,6 +25,10 @@ type BlockedSampler struct {
 	Seg           *Segmentation
 	Model         *Words
 	MaxWordLength int
+	// Factor, when not nil, multiplies the target by Factor^Weight; the
+	// proposal ignores it and the Metropolis-Hastings test corrects.
+	Factor UtteranceFactor
+	Weight float64
 
 	journal journal
 	accepts int
@@ -32,7 +36,8 @@ type BlockedSampler struct {
 
 	// Scratch space reused across utterances, so sweeps do not allocate
 	// once it has grown to the longest utterance.
-	words []customer
+	words    []customer
+	newWords []int32
 	// Order 1: fwd[t] = log sum over segmentations of units [0,t) whose
 	// last word ends at t. Order 2: fwd[t*(K+1)+k] for a last word of
 	// length k ending at t.
@@ -70,7 +75,7 @@ func (g *BlockedSampler) Sweep(temperature float64, rng *rand.Rand) {
 	for u := 0; u < c.Len(); u++ {
 		start, end := c.Utterance(u)
 		if end-start > 1 {
-			g.resample(start, end, temperature, rng)
+			g.resample(u, start, end, temperature, rng)
 		}
 	}
 }
@@ -118,7 +123,7 @@ func (m *Words) logUnigramSpan(a, b int) (WordType, float64) {
 }
 
 // resample proposes a new segmentation of the utterance [us, ue).
-func (g *BlockedSampler) resample(us, ue int, temperature float64, rng *rand.Rand) {
+func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.Rand) {
 	m := g.Model
 	b := g.Seg.Boundary
 	L := ue - us
@@ -161,10 +166,12 @@ func (g *BlockedSampler) resample(us, ue int, temperature float64, rng *rand.Ran
 	logNew := 0.0
 	prev = End
 	w0 = us
+	g.newWords = g.newWords[:0]
 	for i := us + 1; i <= ue; i++ {
 		if i == ue || newB[i-us] {
 			w := m.Intern(w0, i)
 			logNew += m.add(prev, w, rng, &g.journal)
+			g.newWords = append(g.newWords, int32(w))
 			prev, w0 = w, i
 		}
 	}
@@ -175,9 +182,15 @@ func (g *BlockedSampler) resample(us, ue int, temperature float64, rng *rand.Ran
 	logNew += m.logUtteranceEnds(tokensMid - m.tokens)
 	m.tokens = tokensMid
 
+	if g.Factor != nil {
+		logNew += g.Weight * g.Factor.Delta(u, g.newWords)
+	}
 	g.steps++
 	logRatio := (logNew*inv - logQNew) - (logOld*inv - logQOld)
 	if logRatio >= 0 || math.Log(rng.Float64()) < logRatio {
+		if g.Factor != nil {
+			g.Factor.Set(u, g.newWords)
+		}
 		for i := us + 1; i < ue; i++ {
 			b[i] = newB[i-us]
 		}

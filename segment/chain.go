@@ -95,16 +95,27 @@ func (m *Words) hyper() Hyper {
 
 // runBlock advances st by up to cfg.Block iterations, ending at a block
 // boundary or at cfg.Iterations.
-func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func()) error {
+func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), factor FactorBuilder) error {
 	block := st.Iteration / cfg.Block
 	rng := blockRand(cfg.Seed, st.Index, block)
 	seg := &Segmentation{Corpus: c, Boundary: st.Boundary}
 	m := newModel(c, cfg, st.Hyper)
 	var g sampler
+	var f UtteranceFactor
 	if cfg.Sampler == "blocked" {
-		g = NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
+		bs := NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
+		if factor != nil {
+			f = factor(utteranceWords(seg, m))
+			bs.Factor, bs.Weight = f, cfg.TranslationWeight
+		}
+		g = bs
 	} else {
-		g = NewWordsGibbs(seg, m, rng)
+		gs := NewWordsGibbs(seg, m, rng)
+		if factor != nil {
+			f = factor(utteranceWords(seg, m))
+			gs.Factor, gs.Weight = f, cfg.TranslationWeight
+		}
+		g = gs
 	}
 	stop := min(cfg.Iterations, (block+1)*cfg.Block)
 	for st.Iteration < stop {
@@ -159,21 +170,22 @@ func (cfg Config) temperature(k int) float64 {
 	return s(k, cfg.Burnin)
 }
 
-// RunChain runs one chain from st to cfg.Iterations, calling checkpoint
-// after every block. It returns ctx's error if cancelled, leaving st at
-// its last completed block.
-func RunChain(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), checkpoint func(*ChainState) error) error {
+// RunChain runs one chain from st to cfg.Iterations, calling
+// opts.Checkpoint after every block. It returns ctx's error if cancelled,
+// leaving st at its last completed block. progress is called after every
+// sweep.
+func RunChain(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), opts RunOptions) error {
 	if len(st.Boundary) != len(c.Units) || len(st.BoundaryCounts) != len(c.Units) {
 		return fmt.Errorf("chain %d: state does not fit the corpus", st.Index)
 	}
 	for st.Iteration < cfg.Iterations {
 		work := st.clone()
-		if err := runBlock(ctx, c, cfg, work, progress); err != nil {
+		if err := runBlock(ctx, c, cfg, work, progress, opts.Factor); err != nil {
 			return err
 		}
 		*st = *work
-		if checkpoint != nil {
-			if err := checkpoint(st); err != nil {
+		if opts.Checkpoint != nil {
+			if err := opts.Checkpoint(st); err != nil {
 				return err
 			}
 		}

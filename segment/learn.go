@@ -48,6 +48,12 @@ type Config struct {
 	// Fixed lists the hyperparameters that are not sampled; the values
 	// above are then used throughout, else they are starting values.
 	Fixed Fixed `json:"fixed"`
+	// TranslationWeight is the exponent of the translation factor, when
+	// the run has one (RunOptions.Factor).
+	TranslationWeight float64 `json:"translation_weight"`
+	// TranslationMinCount is the fewest tokens a word needs before its
+	// translation associations count (see align.Model.MinOccurrences).
+	TranslationMinCount int `json:"translation_min_count"`
 	// InitialBoundary is the probability of a boundary at each free gap
 	// in the random first segmentation.
 	InitialBoundary float64 `json:"initial_boundary"`
@@ -64,7 +70,7 @@ type Config struct {
 // better starts), every hyperparameter sampled.
 func DefaultConfig() Config {
 	return Config{Model: "unigram", Base: "uniform", NgramOrder: 3, Sampler: "boundary", MaxWordLength: 24, Iterations: 1000, Burnin: 800, Chains: 1, Block: 50,
-		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1}
+		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1, TranslationWeight: 1, TranslationMinCount: 10}
 }
 
 // Validate reports the first setting that is out of range.
@@ -96,6 +102,8 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("word-end probability must be in (0,1), got %v", cfg.WordEnd)
 	case !(cfg.Rho > 0):
 		return fmt.Errorf("rho must be positive, got %v", cfg.Rho)
+	case !(cfg.TranslationWeight >= 0):
+		return fmt.Errorf("translation weight must be at least 0, got %v", cfg.TranslationWeight)
 	case !(cfg.InitialBoundary >= 0 && cfg.InitialBoundary <= 1):
 		return fmt.Errorf("initial boundary probability must be in [0,1], got %v", cfg.InitialBoundary)
 	}
@@ -119,14 +127,23 @@ type Result struct {
 	Chains []*ChainState
 }
 
+// RunOptions are the parts of a run that are not settings.
+type RunOptions struct {
+	// Progress is called after every sweep of any chain (serialised).
+	Progress func()
+	// Checkpoint is called after every block of a chain, possibly
+	// concurrently for different chains.
+	Checkpoint func(*ChainState) error
+	// Factor, when not nil, builds an extra factor on each utterance's
+	// words (a translation prior) at the start of every block.
+	Factor FactorBuilder
+}
+
 // Run learns from c under cfg, starting each chain from states[i] when
 // given (a resumed run) or from a fresh random segmentation. Chains run in
 // parallel goroutines, each with its own random sources, so the result
-// does not depend on the number of threads. progress is called after every
-// sweep of any chain (serialised); checkpoint after every block of a
-// chain (possibly concurrently for different chains).
-func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState,
-	progress func(), checkpoint func(*ChainState) error) (*Result, error) {
+// does not depend on the number of threads.
+func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState, opts RunOptions) (*Result, error) {
 	if err := cfg.Validate(); err != nil {
 		return nil, err
 	}
@@ -141,9 +158,9 @@ func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState,
 	}
 	var mu sync.Mutex
 	tick := func() {
-		if progress != nil {
+		if opts.Progress != nil {
 			mu.Lock()
-			progress()
+			opts.Progress()
 			mu.Unlock()
 		}
 	}
@@ -153,7 +170,7 @@ func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState,
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			errs[i] = RunChain(ctx, c, cfg, st, tick, checkpoint)
+			errs[i] = RunChain(ctx, c, cfg, st, tick, opts)
 		}()
 	}
 	wg.Wait()

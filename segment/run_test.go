@@ -56,7 +56,7 @@ func TestRunIndependentOfThreads(t *testing.T) {
 		var posts [][]float64
 		for _, procs := range []int{1, 2, 4} {
 			old := runtime.GOMAXPROCS(procs)
-			res, err := Run(context.Background(), c, cfg, nil, nil, nil)
+			res, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 			runtime.GOMAXPROCS(old)
 			if err != nil {
 				t.Fatal(err)
@@ -70,7 +70,7 @@ func TestRunIndependentOfThreads(t *testing.T) {
 			}
 		}
 		cfg.Seed++
-		res, err := Run(context.Background(), c, cfg, nil, nil, nil)
+		res, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -86,7 +86,7 @@ func TestRunResumeIdentical(t *testing.T) {
 	c := syntheticCorpus(t, 60)
 	for _, model := range []string{"unigram", "bigram"} {
 		cfg := runConfig(model)
-		full, err := Run(context.Background(), c, cfg, nil, nil, nil)
+		full, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -108,7 +108,7 @@ func TestRunResumeIdentical(t *testing.T) {
 				}
 				return nil
 			}
-			_, err := Run(ctx, c, cfg, nil, nil, checkpoint)
+			_, err := Run(ctx, c, cfg, nil, RunOptions{Checkpoint: checkpoint})
 			if !errors.Is(err, context.Canceled) {
 				t.Fatalf("stopped run: err = %v", err)
 			}
@@ -117,7 +117,7 @@ func TestRunResumeIdentical(t *testing.T) {
 					saved[i] = InitialState(c, cfg, i)
 				}
 			}
-			resumed, err := Run(context.Background(), c, cfg, saved, nil, nil)
+			resumed, err := Run(context.Background(), c, cfg, saved, RunOptions{})
 			if err != nil {
 				t.Fatal(err)
 			}

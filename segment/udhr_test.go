@@ -47,7 +47,7 @@ func TestUnigramOnRealData(t *testing.T) {
 	}
 	cfg := DefaultConfig()
 	cfg.Iterations, cfg.Burnin = 300, 240
-	res, err := Run(context.Background(), c, cfg, nil, nil, nil)
+	res, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -28,6 +28,10 @@ type WordsGibbs struct {
 	Seg   *Segmentation
 	Model *Words
 
+	// Factor, when not nil, multiplies the target by Factor^Weight.
+	Factor UtteranceFactor
+	Weight float64
+
 	journal journal
 	accepts int
 	steps   int
@@ -59,7 +63,7 @@ func (g *WordsGibbs) Sweep(temperature float64, rng *rand.Rand) {
 		start, end := c.Utterance(u)
 		for i := start + 1; i < end; i++ {
 			if c.LockAt(i) == Free {
-				g.step(i, start, end, temperature, rng)
+				g.step(u, i, start, end, temperature, rng)
 			}
 		}
 	}
@@ -69,7 +73,7 @@ func (g *WordsGibbs) Sweep(temperature float64, rng *rand.Rand) {
 type customer struct{ prev, w WordType }
 
 // step proposes flipping the gap before unit i of utterance [us, ue).
-func (g *WordsGibbs) step(i, us, ue int, temperature float64, rng *rand.Rand) {
+func (g *WordsGibbs) step(u, i, us, ue int, temperature float64, rng *rand.Rand) {
 	b := g.Seg.Boundary
 	m := g.Model
 	l := i - 1
@@ -124,8 +128,24 @@ func (g *WordsGibbs) step(i, us, ue int, temperature float64, rng *rand.Rand) {
 		logNew += m.add(cu.prev, cu.w, rng, &g.journal)
 	}
 	logRatio := logNew - logOld + m.logEnds(m.tokens) - m.logEnds(tokensBefore)
+	factor := 0.0
+	if g.Factor != nil {
+		if b[i] {
+			factor = g.Factor.JoinDelta(u, int32(first), int32(second), int32(whole))
+		} else {
+			factor = g.Factor.SplitDelta(u, int32(whole), int32(first), int32(second))
+		}
+		logRatio += g.Weight * factor
+	}
 	g.steps++
 	if logRatio >= 0 || math.Log(rng.Float64()) < logRatio/temperature {
+		if g.Factor != nil {
+			if b[i] {
+				g.Factor.Join(u, int32(first), int32(second), int32(whole))
+			} else {
+				g.Factor.Split(u, int32(whole), int32(first), int32(second))
+			}
+		}
 		b[i] = !b[i]
 		g.accepts++
 		return

@@ -7,6 +7,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"github.com/juncture-project/juncture/align"
 	"github.com/juncture-project/juncture/data/demo"
 	"github.com/juncture-project/juncture/lexicon"
 	"github.com/juncture-project/juncture/segment"
@@ -23,7 +24,8 @@ func demoCommand() *cli.Command {
 			"corpus's gold segmentation and lists the most frequent words found, with how sure\n" +
 			"the sampler is of their edges and whether the invented lexicon has them.",
 		Flags: []cli.Flag{
-			&cli.StringFlag{Name: "model", Value: "unigram", Usage: "word model: unigram or bigram"},
+			&cli.StringFlag{Name: "model", Value: "bigram", Usage: "word model: unigram or bigram"},
+			&cli.Float64Flag{Name: "translation-weight", Value: 0, Usage: "weight of the English translations as a prior on segmenting (0: used for glosses only)"},
 			&cli.IntFlag{Name: "iterations", Value: 300, Usage: "Gibbs sweeps per chain"},
 			&cli.IntFlag{Name: "chains", Value: 2, Usage: "independent chains, pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: 1, Usage: "random seed"},
@@ -54,13 +56,29 @@ func runDemo(ctx *cli.Context) error {
 	}
 	fmt.Fprintf(out, "Kelaru demo: %d utterances of an invented language (%d units, %d distinct).\n",
 		c.Len(), len(c.Units), len(c.Inventory))
+	cfg.TranslationWeight = ctx.Float64("translation-weight")
+	if err := cfg.Validate(); err != nil {
+		return err
+	}
+	tr, err := align.ReadTranslations(bytes.NewReader(demo.Translations()), "demo/translations.txt", nil)
+	if err != nil {
+		return err
+	}
+	tokens, err := tr.Select(c.Lines)
+	if err != nil {
+		return err
+	}
+	var factor segment.FactorBuilder
+	if cfg.TranslationWeight > 0 {
+		factor = translationFactor(tokens, cfg)
+	}
 	fmt.Fprintf(out, "Learning with the %s model, %d chain(s) of %d sweeps...\n", cfg.Model, cfg.Chains, cfg.Iterations)
 	bar := newProgress(ctx.App.ErrWriter, cfg.Iterations*cfg.Chains, "learning", ctx.Bool("quiet"))
 	var progress func()
 	if bar != nil {
 		progress = func() { bar.Add(1) }
 	}
-	res, err := segment.Run(ctx.Context, c, cfg, nil, progress, nil)
+	res, err := segment.Run(ctx.Context, c, cfg, nil, segment.RunOptions{Progress: progress, Factor: factor})
 	if err != nil {
 		return err
 	}
@@ -93,19 +111,27 @@ func runDemo(ctx *cli.Context) error {
 		gloss[e.Form] = e.Gloss
 	}
 	lex := lexicon.Build(res.Decoded, res.Posterior)
+	lexicon.AddGlosses(lex, res.Decoded, tokens, lexicon.DefaultGlossOptions())
 	fmt.Fprintf(out, "\n%d word types found. The %d most frequent:\n", len(lex), min(ctx.Int("top"), len(lex)))
 	return writeDemoLexicon(out, lex[:min(ctx.Int("top"), len(lex))], gloss)
 }
 
 func writeDemoLexicon(w io.Writer, lex []lexicon.Entry, gloss map[string]string) error {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  word\tcount\tconfidence\tin the invented lexicon\texample lines")
+	fmt.Fprintln(tw, "  word\tcount\tconfidence\tglosses learned from the translations\tin the invented lexicon")
 	for _, e := range lex {
 		known := "no"
 		if g, ok := gloss[e.Form]; ok {
 			known = "yes: " + g
 		}
-		fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%s\t%v\n", e.Form, e.Count, e.Confidence, known, e.Lines)
+		var learned []string
+		for _, g := range e.Glosses {
+			learned = append(learned, g.Word)
+		}
+		if len(learned) == 0 {
+			learned = []string{"-"}
+		}
+		fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%s\t%s\n", e.Form, e.Count, e.Confidence, strings.Join(learned, ", "), known)
 	}
 	return tw.Flush()
 }

@@ -61,30 +61,6 @@ func openInput(name string) (io.ReadCloser, string, error) {
 	return f, name, nil
 }
 
-// readCorpusArg reads the transcript named by the command's only argument.
-func readCorpusArg(ctx *cli.Context) (*segment.Corpus, error) {
-	if ctx.NArg() != 1 {
-		return nil, fmt.Errorf("want one INPUT file (or - for standard input), got %d arguments", ctx.NArg())
-	}
-	opts, err := readOptions(ctx)
-	if err != nil {
-		return nil, err
-	}
-	r, name, err := openInput(ctx.Args().First())
-	if err != nil {
-		return nil, err
-	}
-	defer r.Close()
-	c, err := segment.ReadCorpus(r, name, opts)
-	if err != nil {
-		return nil, err
-	}
-	if c.Len() == 0 {
-		return nil, fmt.Errorf("%s: no utterances", name)
-	}
-	return c, nil
-}
-
 // writeOutput writes through fill to the file named by --out, atomically,
 // or to standard output when --out is empty.
 func writeOutput(ctx *cli.Context, fill func(io.Writer) error) error {

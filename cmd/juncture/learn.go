@@ -49,7 +49,7 @@ func learnCommand() *cli.Command {
 			&cli.BoolFlag{Name: "resume", Usage: "continue the run in --state DIR from its last checkpoint (INPUT and model flags are taken from DIR)"},
 			&cli.IntFlag{Name: "block", Value: d.Block, Usage: "sweeps between checkpoints (each chain's model is rebuilt from its sample at every block)"},
 			&cli.BoolFlag{Name: "quiet", Aliases: []string{"q"}, Usage: "no progress bar"},
-		}, unitFlags()...),
+		}, append(unitFlags(), translationFlags()...)...),
 		Action: runLearn,
 	}
 }
@@ -83,6 +83,8 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	set("discount0", &cfg.Discount0, &cfg.Fixed.Discount0)
 	set("discount1", &cfg.Discount1, &cfg.Fixed.Discount1)
 	set("word-end", &cfg.WordEnd, &cfg.Fixed.WordEnd)
+	cfg.TranslationWeight = ctx.Float64("translation-weight")
+	cfg.TranslationMinCount = ctx.Int("translation-min-count")
 	return cfg, cfg.Validate()
 }
 
@@ -92,13 +94,14 @@ func runLearn(ctx *cli.Context) error {
 		c      *segment.Corpus
 		cfg    segment.Config
 		states []*segment.ChainState
+		tokens [][]string
 		err    error
 	)
 	if ctx.Bool("resume") {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
@@ -112,6 +115,9 @@ func runLearn(ctx *cli.Context) error {
 			return err
 		}
 		cfg = settings.Config
+		if tokens, err = state.Translations(dir, c); err != nil {
+			return err
+		}
 		for i, st := range states {
 			if st == nil { // killed before this chain's first checkpoint
 				states[i] = segment.InitialState(c, cfg, i)
@@ -121,11 +127,11 @@ func runLearn(ctx *cli.Context) error {
 		if cfg, err = learnConfig(ctx); err != nil {
 			return err
 		}
-		if c, err = readCorpusArg(ctx); err != nil {
+		if c, tokens, err = readInput(ctx); err != nil {
 			return err
 		}
 		if dir != "" {
-			if err := state.Create(dir, c, cfg, ctx.Args().First()); err != nil {
+			if err := state.Create(dir, c, cfg, ctx.Args().First(), tokens); err != nil {
 				return err
 			}
 		}
@@ -144,7 +150,7 @@ func runLearn(ctx *cli.Context) error {
 	if dir != "" {
 		checkpoint = func(st *segment.ChainState) error { return state.SaveChain(dir, st) }
 	}
-	res, err := segment.Run(ctx.Context, c, cfg, states, progress, checkpoint)
+	res, err := segment.Run(ctx.Context, c, cfg, states, segment.RunOptions{Progress: progress, Checkpoint: checkpoint, Factor: translationFactor(tokens, cfg)})
 	if err != nil {
 		return err
 	}

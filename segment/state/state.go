@@ -5,6 +5,7 @@
 //
 //	settings.json      format version, the run's Config, input name, corpus digest
 //	corpus.tsv         the corpus as read: source line, units, locks
+//	translations.txt   each utterance's translation tokens, if the run has them
 //	chain-N.json.gz    chain N: iteration, hyperparameters, sample, counts, trace
 //	posteriors.tsv     every free gap's boundary probability (when finished)
 //	segmentation.txt   the decoded segmentation (when finished)
@@ -48,11 +49,13 @@ var ErrExists = errors.New("already holds a run (use --resume to continue it, or
 
 const (
 	settingsFile = "settings.json"
-	corpusFile   = "corpus.tsv"
+	corpusFile       = "corpus.tsv"
+	translationsFile = "translations.txt"
 )
 
-// Create starts a state directory for a new run on c.
-func Create(dir string, c *segment.Corpus, cfg segment.Config, input string) error {
+// Create starts a state directory for a new run on c. translations, when
+// not nil, holds each utterance's translation tokens.
+func Create(dir string, c *segment.Corpus, cfg segment.Config, input string, translations [][]string) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return err
 	}
@@ -62,6 +65,16 @@ func Create(dir string, c *segment.Corpus, cfg segment.Config, input string) err
 	corpus := encodeCorpus(c)
 	if err := atomicfile.WriteBytes(filepath.Join(dir, corpusFile), corpus); err != nil {
 		return err
+	}
+	if translations != nil {
+		var b bytes.Buffer
+		for _, toks := range translations {
+			b.WriteString(strings.Join(toks, " "))
+			b.WriteByte('\n')
+		}
+		if err := atomicfile.WriteBytes(filepath.Join(dir, translationsFile), b.Bytes()); err != nil {
+			return err
+		}
 	}
 	sum := sha256.Sum256(corpus)
 	s := Settings{Version: Version, Input: input, Digest: hex.EncodeToString(sum[:]), Config: cfg}
@@ -131,6 +144,28 @@ func decodeCorpus(data []byte, name string) (*segment.Corpus, error) {
 		}
 	}
 	return c, nil
+}
+
+// Translations returns the translation tokens kept in dir, one list per
+// utterance, or nil if the run has none.
+func Translations(dir string, c *segment.Corpus) ([][]string, error) {
+	path := filepath.Join(dir, translationsFile)
+	data, err := os.ReadFile(path)
+	if errors.Is(err, os.ErrNotExist) {
+		return nil, nil
+	}
+	if err != nil {
+		return nil, err
+	}
+	lines := strings.Split(strings.TrimSuffix(string(data), "\n"), "\n")
+	if len(lines) != c.Len() {
+		return nil, fmt.Errorf("%s: %d lines for %d utterances", path, len(lines), c.Len())
+	}
+	out := make([][]string, len(lines))
+	for i, l := range lines {
+		out[i] = strings.Fields(l)
+	}
+	return out, nil
 }
 
 // Open reads a state directory: its settings, corpus and chain states

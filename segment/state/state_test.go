@@ -43,13 +43,13 @@ func TestCreateOpenResume(t *testing.T) {
 	c := testCorpus(t)
 	cfg := segment.DefaultConfig()
 	cfg.Iterations, cfg.Burnin, cfg.Block, cfg.Chains = 12, 6, 5, 2
-	if err := Create(dir, c, cfg, "in.txt"); err != nil {
+	if err := Create(dir, c, cfg, "in.txt", nil); err != nil {
 		t.Fatal(err)
 	}
-	if err := Create(dir, c, cfg, "in.txt"); !errors.Is(err, ErrExists) {
+	if err := Create(dir, c, cfg, "in.txt", nil); !errors.Is(err, ErrExists) {
 		t.Fatalf("second Create: err = %v, want ErrExists", err)
 	}
-	res, err := segment.Run(context.Background(), c, cfg, nil, nil, func(st *segment.ChainState) error { return SaveChain(dir, st) })
+	res, err := segment.Run(context.Background(), c, cfg, nil, segment.RunOptions{Checkpoint: func(st *segment.ChainState) error { return SaveChain(dir, st) }})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -82,7 +82,7 @@ func TestCreateOpenResume(t *testing.T) {
 func TestOpenRejectsTamperedCorpus(t *testing.T) {
 	dir := t.TempDir()
 	c := testCorpus(t)
-	if err := Create(dir, c, segment.DefaultConfig(), "in.txt"); err != nil {
+	if err := Create(dir, c, segment.DefaultConfig(), "in.txt", nil); err != nil {
 		t.Fatal(err)
 	}
 	path := filepath.Join(dir, corpusFile)
