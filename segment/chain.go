@@ -39,9 +39,11 @@ type ChainState struct {
 	Boundary  []bool `json:"-"`
 	// BoundaryCounts[i] counts the samples after burn-in with a boundary
 	// before unit i; Samples is their number.
-	BoundaryCounts []uint32     `json:"-"`
-	Samples        int          `json:"samples"`
-	Trace          []TracePoint `json:"trace"`
+	BoundaryCounts []uint32 `json:"-"`
+	Samples        int      `json:"samples"`
+	// Stopped is set when the run ended early because its chains agreed.
+	Stopped bool         `json:"stopped,omitempty"`
+	Trace   []TracePoint `json:"trace"`
 }
 
 // blockRand returns the random source for one block of one chain.
@@ -170,25 +172,19 @@ func (cfg Config) temperature(k int) float64 {
 	return s(k, cfg.Burnin)
 }
 
-// RunChain runs one chain from st to cfg.Iterations, calling
-// opts.Checkpoint after every block. It returns ctx's error if cancelled,
-// leaving st at its last completed block. progress is called after every
-// sweep.
-func RunChain(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), opts RunOptions) error {
+// runOneBlock advances st by one block and checkpoints it. On error st
+// is left at its last completed block.
+func runOneBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progress func(), opts RunOptions) error {
 	if len(st.Boundary) != len(c.Units) || len(st.BoundaryCounts) != len(c.Units) {
 		return fmt.Errorf("chain %d: state does not fit the corpus", st.Index)
 	}
-	for st.Iteration < cfg.Iterations {
-		work := st.clone()
-		if err := runBlock(ctx, c, cfg, work, progress, opts.Factor); err != nil {
-			return err
-		}
-		*st = *work
-		if opts.Checkpoint != nil {
-			if err := opts.Checkpoint(st); err != nil {
-				return err
-			}
-		}
+	work := st.clone()
+	if err := runBlock(ctx, c, cfg, work, progress, opts.Factor); err != nil {
+		return err
+	}
+	*st = *work
+	if opts.Checkpoint != nil {
+		return opts.Checkpoint(st)
 	}
 	return nil
 }

@@ -48,6 +48,9 @@ type Config struct {
 	// Fixed lists the hyperparameters that are not sampled; the values
 	// above are then used throughout, else they are starting values.
 	Fixed Fixed `json:"fixed"`
+	// Converge, when above 1, ends sampling early once the chains agree:
+	// see Converged. Iterations is then a cap.
+	Converge float64 `json:"converge,omitempty"`
 	// TranslationWeight is the exponent of the translation factor, when
 	// the run has one (RunOptions.Factor).
 	TranslationWeight float64 `json:"translation_weight"`
@@ -102,6 +105,8 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("word-end probability must be in (0,1), got %v", cfg.WordEnd)
 	case !(cfg.Rho > 0):
 		return fmt.Errorf("rho must be positive, got %v", cfg.Rho)
+	case cfg.Converge != 0 && !(cfg.Converge > 1):
+		return fmt.Errorf("convergence threshold must be above 1 (a potential scale reduction), got %v", cfg.Converge)
 	case !(cfg.TranslationWeight >= 0):
 		return fmt.Errorf("translation weight must be at least 0, got %v", cfg.TranslationWeight)
 	case !(cfg.InitialBoundary >= 0 && cfg.InitialBoundary <= 1):
@@ -164,19 +169,39 @@ func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState, opts 
 			mu.Unlock()
 		}
 	}
+	// Chains advance block by block in lockstep, so that a stopping
+	// decision sees every chain at the same iteration and does not depend
+	// on thread timing.
 	errs := make([]error, len(states))
-	var wg sync.WaitGroup
-	for i, st := range states {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			errs[i] = RunChain(ctx, c, cfg, st, tick, opts)
-		}()
-	}
-	wg.Wait()
-	for _, err := range errs {
-		if err != nil {
-			return nil, err
+	for !finished(cfg, states) {
+		var wg sync.WaitGroup
+		for i, st := range states {
+			if st.Iteration >= cfg.Iterations {
+				continue
+			}
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				errs[i] = runOneBlock(ctx, c, cfg, st, tick, opts)
+			}()
+		}
+		wg.Wait()
+		for _, err := range errs {
+			if err != nil {
+				return nil, err
+			}
+		}
+		if cfg.Converge > 0 && Converged(cfg, states) {
+			for _, st := range states {
+				st.Stopped = true
+			}
+			if opts.Checkpoint != nil {
+				for _, st := range states {
+					if err := opts.Checkpoint(st); err != nil {
+						return nil, err
+					}
+				}
+			}
 		}
 	}
 	return Decode(c, states), nil
@@ -209,4 +234,14 @@ func Decode(c *Corpus, states []*ChainState) *Result {
 		}
 	}
 	return &Result{Posterior: post, Decoded: seg, Chains: states}
+}
+
+// finished reports whether every chain is done.
+func finished(cfg Config, states []*ChainState) bool {
+	for _, st := range states {
+		if st.Iteration < cfg.Iterations && !st.Stopped {
+			return false
+		}
+	}
+	return true
 }

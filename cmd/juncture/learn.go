@@ -36,6 +36,7 @@ func learnCommand() *cli.Command {
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them (default: 4/5 of --iterations)"},
+			&cli.Float64Flag{Name: "converge", Usage: "stop sampling before --iterations once the chains agree: split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other"},
 			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
 			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)"},
@@ -71,6 +72,7 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 		cfg.Burnin = ctx.Int("burnin")
 	}
 	cfg.Chains = ctx.Int("chains")
+	cfg.Converge = ctx.Float64("converge")
 	cfg.Block = ctx.Int("block")
 	cfg.Seed = ctx.Uint64("seed")
 	set := func(name string, v *float64, fixed *bool) {
@@ -101,7 +103,7 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "converge", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
