@@ -50,11 +50,12 @@ func BenchmarkSweepBigram(b *testing.B)   { benchmarkSweep(b, 2, 0) }
 func BenchmarkSweepBigramPY(b *testing.B) { benchmarkSweep(b, 2, 0.3) }
 
 // benchmarkBlocked measures one blocked sweep (whole utterances).
-func benchmarkBlocked(b *testing.B, order, maxLen int) {
+func benchmarkBlocked(b *testing.B, order, maxLen int, uniProp bool) {
 	c := benchCorpus(b)
 	rng := rand.New(rand.NewPCG(1, 2))
 	m := NewWords(c, order, PitmanYor{0, 1000}, PitmanYor{0, 100}, UniformBase{WordEnd: 0.5, Units: len(c.Inventory)})
 	g := NewBlockedSampler(RandomSegmentation(c, 0.3, rng), m, maxLen, rng)
+	g.UnigramProposal = uniProp
 	for i := 0; i < 2; i++ {
 		g.Sweep(1, rng)
 	}
@@ -64,7 +65,9 @@ func benchmarkBlocked(b *testing.B, order, maxLen int) {
 		g.Sweep(1, rng)
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(c.Units)), "ns/unit")
+	b.ReportMetric(g.AcceptanceRate(), "accept")
 }
 
-func BenchmarkBlockedUnigram(b *testing.B) { benchmarkBlocked(b, 1, 16) }
-func BenchmarkBlockedBigram(b *testing.B)  { benchmarkBlocked(b, 2, 16) }
+func BenchmarkBlockedUnigram(b *testing.B)           { benchmarkBlocked(b, 1, 16, false) }
+func BenchmarkBlockedBigram(b *testing.B)            { benchmarkBlocked(b, 2, 16, false) }
+func BenchmarkBlockedBigramUniProposal(b *testing.B) { benchmarkBlocked(b, 2, 16, true) }

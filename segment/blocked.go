@@ -25,6 +25,10 @@ type BlockedSampler struct {
 	Seg           *Segmentation
 	Model         *Words
 	MaxWordLength int
+	// UnigramProposal makes the bigram model draw proposals from its
+	// unigram level G0 alone: a lattice K times cheaper, at the cost of
+	// more rejections; the Metropolis-Hastings test keeps it exact.
+	UnigramProposal bool
 	// Factor, when not nil, multiplies the target by Factor^Weight; the
 	// proposal ignores it and the Metropolis-Hastings test corrects.
 	Factor UtteranceFactor
@@ -155,7 +159,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	// Forward filtering.
 	var logQOld, logQNew float64
 	newB := g.growScratch(L, K)
-	if m.Order == 1 {
+	if m.Order == 1 || g.UnigramProposal {
 		logQOld, logQNew = g.unigramProposal(us, ue, K, inv, newB, rng)
 	} else {
 		logQOld, logQNew = g.bigramProposal(us, ue, K, inv, newB, rng)
@@ -259,9 +263,10 @@ func (g *BlockedSampler) growScratch(L, K int) []bool {
 	g.fwd = grow(g.fwd, n)
 	g.cum = grow(g.cum, K+1)
 	g.cum2 = grow(g.cum2, K+1)
-	if g.Model.Order == 1 {
+	if g.Model.Order == 1 || g.UnigramProposal {
 		g.term = grow(g.term, n)
-	} else {
+	}
+	if g.Model.Order == 2 {
 		g.term = grow(g.term, n*(K+1))
 		g.uni = grow(g.uni, n)
 	}

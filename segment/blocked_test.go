@@ -27,13 +27,16 @@ func TestBlockedExactPosterior(t *testing.T) {
 		order   int
 		uni, bi PitmanYor
 		maxLen  int
+		uniProp bool
 	}{
-		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0, 2}, PitmanYor{}, 0},
-		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0.5, 1}, PitmanYor{}, 0},
-		{[]string{"aaaa", "aa"}, 1, PitmanYor{0.3, 0.5}, PitmanYor{}, 2},
-		{[]string{"abab", "ab"}, 2, PitmanYor{0, 1}, PitmanYor{0, 1}, 0},
-		{[]string{"aab", "ab"}, 2, PitmanYor{0.5, 1}, PitmanYor{0.3, 2}, 0},
-		{[]string{"abba", "ba"}, 2, PitmanYor{0.2, 3}, PitmanYor{0.6, 0.5}, 3},
+		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0, 2}, PitmanYor{}, 0, false},
+		{[]string{"abab", "ab", "ba"}, 1, PitmanYor{0.5, 1}, PitmanYor{}, 0, false},
+		{[]string{"aaaa", "aa"}, 1, PitmanYor{0.3, 0.5}, PitmanYor{}, 2, false},
+		{[]string{"abab", "ab"}, 2, PitmanYor{0, 1}, PitmanYor{0, 1}, 0, false},
+		{[]string{"aab", "ab"}, 2, PitmanYor{0.5, 1}, PitmanYor{0.3, 2}, 0, false},
+		{[]string{"abba", "ba"}, 2, PitmanYor{0.2, 3}, PitmanYor{0.6, 0.5}, 3, false},
+		{[]string{"aab", "ab"}, 2, PitmanYor{0.5, 1}, PitmanYor{0.3, 2}, 0, true},
+		{[]string{"abba", "ba"}, 2, PitmanYor{0.2, 3}, PitmanYor{0.6, 0.5}, 3, true},
 	}
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
@@ -54,6 +57,7 @@ func TestBlockedExactPosterior(t *testing.T) {
 			rng := rand.New(rand.NewPCG(uint64(i), 11))
 			seg := RandomSegmentation(c, 1, rng) // every gap a boundary: within any limit
 			g := NewBlockedSampler(seg, m, tc.maxLen, rng)
+			g.UnigramProposal = tc.uniProp
 			// The bigram cases hop slowly between modes (an utterance can
 			// only leave "a b a b" when its neighbour's seating allows),
 			// so samples are thinned more to keep them nearly independent.

@@ -48,7 +48,7 @@ type Settings struct {
 var ErrExists = errors.New("already holds a run (use --resume to continue it, or another directory)")
 
 const (
-	settingsFile = "settings.json"
+	settingsFile     = "settings.json"
 	corpusFile       = "corpus.tsv"
 	translationsFile = "translations.txt"
 )
