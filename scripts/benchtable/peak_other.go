@@ -1,0 +1,8 @@
+//go:build !unix
+
+package main
+
+import "os"
+
+// peakKB returns 0: this system reports no peak resident set size.
+func peakKB(*os.ProcessState) int64 { return 0 }
