@@ -26,7 +26,7 @@ func demoCommand() *cli.Command {
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "model", Value: "bigram", Usage: "word model: unigram or bigram"},
 			&cli.Float64Flag{Name: "translation-weight", Value: 0, Usage: "weight of the English translations as a prior on segmenting (0: used for glosses only)"},
-			&cli.IntFlag{Name: "iterations", Value: 300, Usage: "Gibbs sweeps per chain"},
+			&cli.IntFlag{Name: "iterations", Value: 200, Usage: "Gibbs sweeps per chain"},
 			&cli.IntFlag{Name: "chains", Value: 2, Usage: "independent chains, pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: 1, Usage: "random seed"},
 			&cli.IntFlag{Name: "top", Value: 20, Usage: "how many of the most frequent words to list"},
