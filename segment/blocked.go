@@ -35,6 +35,7 @@ type BlockedSampler struct {
 	Weight float64
 
 	journal journal
+	marks   []int
 	accepts int
 	steps   int
 
@@ -166,6 +167,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	}
 
 	// Seat the proposal, multiplying its predictives.
+	g.marks = m.mark(g.marks)
 	tokensMid := m.tokens
 	logNew := 0.0
 	prev = End
@@ -203,6 +205,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	}
 	g.journal.undo()
 	m.tokens = tokensBefore
+	m.forget(g.marks)
 }
 
 // maxLen returns the longest word the proposal allows in [us, ue): the

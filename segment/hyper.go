@@ -134,8 +134,8 @@ func (m *Words) sampleWordEnd(ub UniformBase, rng *rand.Rand) {
 	tables, extra := 0.0, 0.0
 	for i := range m.uni.seats {
 		w := m.uni.dishes[i]
-		if w == End {
-			continue
+		if w == End || m.uni.seats[i].tables == 0 {
+			continue // End, or an empty seat (perhaps of a forgotten type)
 		}
 		t := float64(m.uni.seats[i].tables)
 		tables += t

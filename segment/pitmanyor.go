@@ -28,10 +28,12 @@ type restaurants struct {
 	// -1 where absent.
 	first     []int32
 	seats     []dishSeating
-	dishes    []WordType  // dishes[i] is the dish of seats[i]
-	customers []int32     // by context
-	tables    []int32     // by context
-	slab      []sizeCount // spare histogram room for new dishes
+	dishes    []WordType    // dishes[i] is the dish of seats[i]
+	customers []int32       // by context
+	tables    []int32       // by context
+	slab      []sizeCount   // spare histogram room for new dishes
+	free      [][]sizeCount // histogram room of dropped seats, for reuse
+	seatCtx   []int32       // seatCtx[i] is the context of seats[i]
 	// changes counts seating changes, undone ones included, so that a
 	// cache of predictive probabilities can tell when it is stale.
 	changes uint64
@@ -68,15 +70,43 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		}
 		r.first[w+1] = int32(len(r.seats))
 	}
-	if len(r.slab) < 2 {
-		r.slab = make([]sizeCount, 4096)
-	}
 	// Most dishes never have more than two table sizes: give each room
-	// for two from a shared slab, so creating a dish seldom allocates.
-	r.seats = append(r.seats, dishSeating{hist: r.slab[:0:2]})
-	r.slab = r.slab[2:]
+	// for two from a shared slab (or a dropped seat's), so creating a dish
+	// seldom allocates.
+	var hist []sizeCount
+	if n := len(r.free); n > 0 {
+		hist, r.free = r.free[n-1][:0], r.free[:n-1]
+	} else {
+		if len(r.slab) < 2 {
+			r.slab = make([]sizeCount, 4096)
+		}
+		hist, r.slab = r.slab[:0:2], r.slab[2:]
+	}
+	r.seats = append(r.seats, dishSeating{hist: hist})
 	r.dishes = append(r.dishes, w)
+	r.seatCtx = append(r.seatCtx, ctx)
 	return &r.seats[len(r.seats)-1]
+}
+
+// dropSeats forgets the seats created since there were n, which must all
+// be empty: after a rejected proposal, so that (context, dish) pairs that
+// were only proposed do not pile up in the index.
+func (r *restaurants) dropSeats(n int) {
+	for i := len(r.seats) - 1; i >= n; i-- {
+		ds := &r.seats[i]
+		if ds.customers != 0 {
+			panic("segment: dropping a seat with customers")
+		}
+		ctx, w := r.seatCtx[i], r.dishes[i]
+		delete(r.index, seatKey(ctx, w))
+		if ctx == 0 {
+			r.first[w+1] = -1
+		}
+		r.free = append(r.free, ds.hist[:0])
+	}
+	if n < len(r.seats) {
+		r.seats, r.dishes, r.seatCtx = r.seats[:n], r.dishes[:n], r.seatCtx[:n]
+	}
 }
 
 func (r *restaurants) totals(ctx int32) (customers, tables float64) {

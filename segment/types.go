@@ -112,3 +112,25 @@ func (t *Types) Text(c *Corpus, id WordType) string {
 	s := int(t.First[id])
 	return c.Text(s, s+int(t.Length[id]))
 }
+
+// Truncate forgets every type with an ID of n or more: the types added
+// since Len was n, as when a proposal that introduced them is rejected.
+// With linear probing, removing the most recently added keys in reverse
+// order of insertion leaves every other key's probe sequence intact (no
+// key added before them ever probed past their slots), so their slots are
+// simply cleared. The IDs will be given out again.
+func (t *Types) Truncate(n int) {
+	if n >= len(t.Length) {
+		return
+	}
+	mask := len(t.slots) - 1
+	for id := len(t.Length) - 1; id >= n; id-- {
+		for i := int(t.hashes[id]) & mask; ; i = (i + 1) & mask {
+			if t.slots[i] == int32(id)+1 {
+				t.slots[i] = 0
+				break
+			}
+		}
+	}
+	t.Length, t.First, t.LogBase, t.hashes = t.Length[:n], t.First[:n], t.LogBase[:n], t.hashes[:n]
+}

@@ -69,6 +69,38 @@ func (m *Words) Intern(start, end int) WordType {
 	return id
 }
 
+// mark records how many types and seats there are, so that a rejected
+// proposal can be rolled back with forget; marks is reused.
+func (m *Words) mark(marks []int) []int {
+	marks = append(marks[:0], m.Types.Len(), len(m.uni.seats), len(m.bi.seats))
+	if nb := m.ngram(); nb != nil {
+		for _, r := range nb.levels {
+			marks = append(marks, len(r.seats))
+		}
+	}
+	return marks
+}
+
+// forget drops the types and seats created since marks were taken, after
+// a rejected proposal has been undone (every such seat is empty by then).
+// Proposed words that were never accepted thus leave no trace, which
+// keeps the tables small and the sweeps free of allocation. The
+// base-probability cache entries of dropped type IDs are reset, as the IDs
+// will be given out again.
+func (m *Words) forget(marks []int) {
+	m.Types.Truncate(marks[0])
+	for i := marks[0]; i < len(m.baseStamp); i++ {
+		m.baseStamp[i] = 0
+	}
+	m.uni.dropSeats(marks[1])
+	m.bi.dropSeats(marks[2])
+	if nb := m.ngram(); nb != nil {
+		for k, r := range nb.levels {
+			r.dropSeats(marks[3+k])
+		}
+	}
+}
+
 // ngram returns the base if it is an adaptive unit model, else nil.
 func (m *Words) ngram() *NgramBase {
 	nb, _ := m.Base.(*NgramBase)

@@ -33,6 +33,7 @@ type WordsGibbs struct {
 	Weight float64
 
 	journal journal
+	marks   []int
 	accepts int
 	steps   int
 }
@@ -101,6 +102,7 @@ func (g *WordsGibbs) step(u, i, us, ue int, temperature float64, rng *rand.Rand)
 			next = m.Intern(r, n)
 		}
 	}
+	g.marks = m.mark(g.marks)
 	whole := m.Intern(l, r)
 	first := m.Intern(l, i)
 	second := m.Intern(i, r)
@@ -152,4 +154,5 @@ func (g *WordsGibbs) step(u, i, us, ue int, temperature float64, rng *rand.Rand)
 	}
 	g.journal.undo()
 	m.tokens = tokensBefore
+	m.forget(g.marks)
 }
