@@ -20,8 +20,8 @@ func learnCommand() *cli.Command {
 		Description: "Reads INPUT (a file, or - for standard input): one utterance per line, no word\n" +
 			"boundaries. Writes one segmented line per utterance, words separated by single\n" +
 			"spaces, to standard output or --out. A progress bar goes to standard error.\n\n" +
-			"Hyperparameters (alpha0, alpha1, the discounts, word-end) are sampled from vague\n" +
-			"priors; giving one on the command line fixes it at that value.\n\n" +
+			"Hyperparameters (alpha0, alpha1, word-end, and with --pitman-yor the discounts)\n" +
+			"are sampled from vague priors; giving one on the command line fixes it there.\n\n" +
 			"With --state DIR the run keeps checkpoints in DIR; after an interruption,\n" +
 			"'juncture learn --state DIR --resume' continues it and ends with exactly the output\n" +
 			"an uninterrupted run gives.\n\n" +
@@ -41,8 +41,9 @@ func learnCommand() *cli.Command {
 			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
 			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)"},
 			&cli.Float64Flag{Name: "alpha1", Usage: "fix the bigram concentration (sampled otherwise; starts at 100)"},
-			&cli.Float64Flag{Name: "discount0", Usage: "fix the unigram Pitman-Yor discount (sampled otherwise; 0 gives a Dirichlet process)"},
-			&cli.Float64Flag{Name: "discount1", Usage: "fix the bigram Pitman-Yor discount (sampled otherwise)"},
+			&cli.BoolFlag{Name: "pitman-yor", Usage: "sample Pitman-Yor discounts for the word levels (default: 0, Dirichlet processes)"},
+			&cli.Float64Flag{Name: "discount0", Usage: "fix the unigram Pitman-Yor discount at this value"},
+			&cli.Float64Flag{Name: "discount1", Usage: "fix the bigram Pitman-Yor discount at this value"},
 			&cli.Float64Flag{Name: "word-end", Usage: "fix the base distribution's word-end probability p# (sampled otherwise; starts at 0.5)"},
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the segmentation to `FILE` (atomically) instead of standard output"},
 			&cli.StringFlag{Name: "posteriors", Usage: "write every gap's boundary probability to `FILE` as TSV (line, offset, probability...)"},
@@ -75,6 +76,9 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg.Converge = ctx.Float64("converge")
 	cfg.Block = ctx.Int("block")
 	cfg.Seed = ctx.Uint64("seed")
+	if ctx.Bool("pitman-yor") {
+		cfg.Fixed.Discount0, cfg.Fixed.Discount1 = false, false
+	}
 	set := func(name string, v *float64, fixed *bool) {
 		if ctx.IsSet(name) {
 			*v, *fixed = ctx.Float64(name), true
@@ -103,7 +107,7 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "converge", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
