@@ -1,0 +1,453 @@
+// Command aligneval measures what the translation prior (package align)
+// does on the UDHR corpora of data/eval/udhr: it learns each language's
+// segmentation with and without the prior, over several seeds, scores it
+// against the gold words, and judges the glosses of the resulting lexicon
+// against Debian's FreeDict bilingual dictionaries. It prints a markdown
+// report.
+//
+// Usage (scripts/align-eval.sh installs the dictionaries and runs it):
+//
+//	go run ./scripts/aligneval [flags]
+//
+// The learner is configured as 'juncture learn' configures it (defaults,
+// alpha0 3000 for the bigram model, burn-in 4/5 of the iterations), and
+// the translation factor is built as 'juncture learn --translations' builds
+// it: align.NewFactor(tokens, 1, words, 10, min-count) at every block. A
+// weight of 0 means no factor at all: the run without the prior, which
+// every other weight is compared with, seed for seed.
+//
+// Glosses come from lexicon.AddGlosses with its defaults on the decoded
+// segmentation. Precision is measured on discovered types seen at least
+// -gloss-min times; see Judge for the matching rules and GlossCounts for
+// what is counted. The same is done on the gold segmentation, as a
+// ceiling for the glossing step alone.
+//
+// Output does not depend on -procs: every run has its own random sources
+// (segment.Run), and results are reported in a fixed order.
+//
+// The translation unit is the corpus line, a paragraph. There is no option
+// to split lines into sentences: only 12 of the 60 English lines have a
+// sentence break inside, and the transcripts keep no punctuation to split
+// the other side where the counts agree.
+package main
+
+import (
+	"context"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"runtime"
+	"strconv"
+	"strings"
+	"sync"
+	"time"
+
+	"github.com/juncture-project/juncture/align"
+	"github.com/juncture-project/juncture/segment"
+	"github.com/juncture-project/juncture/segment/atomicfile"
+	"github.com/juncture-project/juncture/segment/score"
+)
+
+// options are the command-line settings.
+type options struct {
+	dataDir, dictDir, dictSet, out, details, stopWords string
+
+	langs              []string
+	seeds              []uint64
+	models, samplers   []string
+	weights            []float64
+	minCounts          []int
+	iterations, chains int
+	procs              int
+	glossMin, minStem  int
+	glossesOnly        bool
+	commandLine        string
+}
+
+// Setting is one learner configuration. Weight 0 is the run without the
+// translation prior; MinCount is then irrelevant and 0.
+type Setting struct {
+	Model, Sampler string
+	Weight         float64
+	MinCount       int
+}
+
+func (s Setting) baseline() bool { return s.Weight == 0 }
+
+func (s Setting) String() string {
+	if s.baseline() {
+		return fmt.Sprintf("%s/%s, no prior", s.Model, s.Sampler)
+	}
+	return fmt.Sprintf("%s/%s, weight %g, min-count %d", s.Model, s.Sampler, s.Weight, s.MinCount)
+}
+
+// config returns the learner settings of s for one seed.
+func (s Setting) config(o *options, seed uint64) segment.Config {
+	cfg := segment.DefaultConfig()
+	cfg.Model = s.Model
+	if cfg.Model == "bigram" {
+		cfg.Alpha0 = 3000 // as 'juncture learn' starts the bigram model
+	}
+	cfg.Sampler = s.Sampler
+	cfg.Iterations = o.iterations
+	cfg.Burnin = o.iterations * 4 / 5
+	cfg.Chains = o.chains
+	cfg.Seed = seed
+	cfg.TranslationWeight = s.Weight
+	if !s.baseline() {
+		cfg.TranslationMinCount = s.MinCount
+	}
+	return cfg
+}
+
+// Outcome is what one run gives.
+type Outcome struct {
+	Scores score.Scores
+	Gloss  GlossCounts
+}
+
+func main() {
+	o, err := parseFlags(os.Args[1:])
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "aligneval:", err)
+		os.Exit(2)
+	}
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+	defer stop()
+	if err := run(ctx, o); err != nil {
+		fmt.Fprintln(os.Stderr, "aligneval:", err)
+		os.Exit(1)
+	}
+}
+
+func parseFlags(args []string) (*options, error) {
+	fs := flag.NewFlagSet("aligneval", flag.ContinueOnError)
+	o := &options{}
+	d := segment.DefaultConfig()
+	var langs, seeds, models, samplers, weights, minCounts string
+	fs.StringVar(&o.dataDir, "data", "", "directory holding one corpus per language (default: data/eval/udhr of the checkout)")
+	fs.StringVar(&o.dictDir, "dict-dir", debianDictDir, "directory of the FreeDict dictd files")
+	fs.StringVar(&o.dictSet, "dicts", "all", "dictionaries judging glosses: all (both directions where Debian has them) or one (one per language)")
+	fs.StringVar(&langs, "langs", "spa,tur,ind,swh,fin", "languages, comma-separated")
+	fs.StringVar(&seeds, "seeds", "1,2,3", "seeds, comma-separated; every setting runs with each")
+	fs.StringVar(&models, "model", d.Model, "word models, comma-separated (unigram, bigram)")
+	fs.StringVar(&samplers, "sampler", d.Sampler, "samplers, comma-separated (boundary, blocked)")
+	fs.StringVar(&weights, "weights", "0,1", "translation weights, comma-separated; 0 is the run without the prior and is always included")
+	fs.StringVar(&minCounts, "min-count", strconv.Itoa(d.TranslationMinCount), "translation min-counts, comma-separated")
+	fs.IntVar(&o.iterations, "iterations", 300, "sweeps per chain")
+	fs.IntVar(&o.chains, "chains", d.Chains, "chains per run")
+	fs.IntVar(&o.procs, "procs", runtime.GOMAXPROCS(0), "most chains running at once")
+	fs.IntVar(&o.glossMin, "gloss-min", 5, "judge the glosses of types seen at least this many times")
+	fs.IntVar(&o.minStem, "min-stem", 4, "a spelling without a dictionary entry takes that of its longest prefix of at least this many characters (0: exact entries only)")
+	fs.StringVar(&o.stopWords, "stop-words", "", "English words to drop from the translations, one per line, from `FILE`")
+	fs.StringVar(&o.out, "out", "", "write the markdown report to `FILE` (atomically) instead of standard output")
+	fs.StringVar(&o.details, "details", "", "write how each type of the gold segmentation's lexicon was judged to `FILE` (TSV)")
+	fs.BoolVar(&o.glossesOnly, "glosses-only", false, "judge the glosses of the gold segmentation only; learn nothing")
+	fs.Usage = func() {
+		fmt.Fprintf(fs.Output(), "usage: aligneval [flags]\n\nLearns each UDHR corpus with and without the translation prior and writes a markdown report.\n\n")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		return nil, err
+	}
+	if fs.NArg() > 0 {
+		return nil, fmt.Errorf("unexpected arguments %q", fs.Args())
+	}
+	o.commandLine = strings.Join(append([]string{"aligneval"}, args...), " ")
+	o.langs = splitList(langs)
+	o.models = splitList(models)
+	o.samplers = splitList(samplers)
+	var err error
+	if o.seeds, err = parseList(seeds, func(s string) (uint64, error) { return strconv.ParseUint(s, 10, 64) }); err != nil {
+		return nil, fmt.Errorf("-seeds: %w", err)
+	}
+	if o.weights, err = parseList(weights, func(s string) (float64, error) {
+		w, err := strconv.ParseFloat(s, 64)
+		if err == nil && !(w >= 0) {
+			err = fmt.Errorf("weight %v is negative", w)
+		}
+		return w, err
+	}); err != nil {
+		return nil, fmt.Errorf("-weights: %w", err)
+	}
+	if o.minCounts, err = parseList(minCounts, strconv.Atoi); err != nil {
+		return nil, fmt.Errorf("-min-count: %w", err)
+	}
+	switch {
+	case len(o.langs) == 0 || len(o.seeds) == 0 || len(o.models) == 0 || len(o.samplers) == 0 || len(o.minCounts) == 0:
+		return nil, errors.New("-langs, -seeds, -model, -sampler and -min-count need at least one value each")
+	case o.procs < 1:
+		return nil, fmt.Errorf("-procs must be at least 1, got %d", o.procs)
+	case o.glossMin < 1:
+		return nil, fmt.Errorf("-gloss-min must be at least 1, got %d", o.glossMin)
+	case dictionaries[o.dictSet] == nil:
+		return nil, fmt.Errorf("-dicts must be all or one, got %q", o.dictSet)
+	}
+	for _, m := range o.minCounts {
+		if m < 0 {
+			return nil, fmt.Errorf("-min-count: %d is negative", m)
+		}
+	}
+	return o, nil
+}
+
+func splitList(s string) []string {
+	var out []string
+	for _, f := range strings.Split(s, ",") {
+		if f = strings.TrimSpace(f); f != "" {
+			out = append(out, f)
+		}
+	}
+	return out
+}
+
+func parseList[T any](s string, parse func(string) (T, error)) ([]T, error) {
+	var out []T
+	for _, f := range splitList(s) {
+		v, err := parse(f)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, v)
+	}
+	return out, nil
+}
+
+// settings returns the configurations to run: for each model and sampler
+// the run without the prior, then one per positive weight and min-count.
+func (o *options) settings() []Setting {
+	var out []Setting
+	for _, m := range o.models {
+		for _, s := range o.samplers {
+			out = append(out, Setting{Model: m, Sampler: s})
+			for _, w := range o.weights {
+				if w == 0 {
+					continue
+				}
+				for _, mc := range o.minCounts {
+					out = append(out, Setting{Model: m, Sampler: s, Weight: w, MinCount: mc})
+				}
+			}
+		}
+	}
+	return out
+}
+
+// findDataDir returns data/eval/udhr of the checkout holding the working
+// directory.
+func findDataDir() (string, error) {
+	wd, err := os.Getwd()
+	if err != nil {
+		return "", err
+	}
+	for d := wd; ; d = filepath.Dir(d) {
+		if _, err := os.Stat(filepath.Join(d, "go.mod")); err == nil {
+			return filepath.Join(d, "data", "eval", "udhr"), nil
+		}
+		if filepath.Dir(d) == d {
+			return "", fmt.Errorf("no go.mod at or above %s: give -data", wd)
+		}
+	}
+}
+
+// Report is everything the markdown report shows.
+type Report struct {
+	Options     *options
+	Settings    []Setting
+	Langs       []string
+	Dicts       [][]string // per language, the databases used
+	Units       []string   // per language, the size of the translation units
+	Reference   []GlossCounts
+	Outcomes    [][][]Outcome // [setting][language][seed]
+	Elapsed     time.Duration
+	MaxParallel int
+}
+
+func run(ctx context.Context, o *options) error {
+	rep, err := buildReport(ctx, o)
+	if err != nil {
+		return err
+	}
+	if o.out == "" {
+		return rep.WriteMarkdown(os.Stdout)
+	}
+	return atomicfile.Write(o.out, rep.WriteMarkdown)
+}
+
+// buildReport loads the corpora and dictionaries, judges the glosses of
+// the gold segmentations, and learns every setting unless o.glossesOnly.
+func buildReport(ctx context.Context, o *options) (*Report, error) {
+	start := time.Now()
+	if o.dataDir == "" {
+		var err error
+		if o.dataDir, err = findDataDir(); err != nil {
+			return nil, err
+		}
+	}
+	var stop map[string]bool
+	if o.stopWords != "" {
+		f, err := os.Open(o.stopWords)
+		if err != nil {
+			return nil, err
+		}
+		stop, err = align.ReadStopWords(f, o.stopWords)
+		f.Close()
+		if err != nil {
+			return nil, err
+		}
+	}
+	rep := &Report{Options: o, Langs: o.langs}
+	langs := make([]*Language, len(o.langs))
+	judges := make([]*Judge, len(o.langs))
+	var details strings.Builder
+	for i, code := range o.langs {
+		l, err := LoadLanguage(filepath.Join(o.dataDir, code), stop)
+		if err != nil {
+			return nil, err
+		}
+		j, used, err := LoadJudge(o.dictDir, o.dictSet, code, o.minStem)
+		if err != nil {
+			return nil, err
+		}
+		langs[i], judges[i] = l, j
+		rep.Dicts = append(rep.Dicts, used)
+		tokens, most := 0, 0
+		for _, t := range l.Tokens {
+			tokens += len(t)
+			most = max(most, len(t))
+		}
+		rep.Units = append(rep.Units, fmt.Sprintf("%d lines, %.1f English tokens per line (at most %d), %d lines with a sentence break inside",
+			l.Corpus.Len(), float64(tokens)/float64(l.Corpus.Len()), most, l.SentenceBreaks))
+		var detail func(glossDetail)
+		if o.details != "" {
+			detail = func(d glossDetail) { writeDetail(&details, code, d) }
+		}
+		rep.Reference = append(rep.Reference, EvalGlosses(l.Reference, nil, l.ReferenceTokens, l.Spellings, j, o.glossMin, detail))
+	}
+	if o.details != "" {
+		err := atomicfile.Write(o.details, func(w io.Writer) error {
+			_, err := io.WriteString(w, "language\tform\tcount\tspellings\tstatus\tglosses\n"+details.String())
+			return err
+		})
+		if err != nil {
+			return nil, err
+		}
+	}
+	if !o.glossesOnly {
+		rep.Settings = o.settings()
+		var err error
+		if rep.Outcomes, rep.MaxParallel, err = runAll(ctx, o, rep.Settings, langs, judges); err != nil {
+			return nil, err
+		}
+	}
+	rep.Elapsed = time.Since(start)
+	return rep, nil
+}
+
+// job is one learning run.
+type job struct {
+	setting, lang, seed int
+}
+
+// runAll runs every setting on every language with every seed, at most
+// o.procs chains at a time, and returns the outcomes by setting, language
+// and seed, and how many runs went at once.
+func runAll(ctx context.Context, o *options, settings []Setting, langs []*Language, judges []*Judge) ([][][]Outcome, int, error) {
+	out := make([][][]Outcome, len(settings))
+	var jobs []job
+	for s := range settings {
+		out[s] = make([][]Outcome, len(langs))
+		for l := range langs {
+			out[s][l] = make([]Outcome, len(o.seeds))
+			for k := range o.seeds {
+				jobs = append(jobs, job{s, l, k})
+			}
+		}
+	}
+	workers := max(1, o.procs/o.chains)
+	ctx, cancel := context.WithCancel(ctx)
+	defer cancel()
+	next := make(chan job)
+	var (
+		wg       sync.WaitGroup
+		mu       sync.Mutex
+		firstErr error
+		done     int
+	)
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for jb := range next {
+				t := time.Now()
+				s, l := settings[jb.setting], langs[jb.lang]
+				res, err := runOne(ctx, o, s, l, judges[jb.lang], o.seeds[jb.seed])
+				mu.Lock()
+				if err != nil {
+					if firstErr == nil {
+						firstErr = fmt.Errorf("%s, %s, seed %d: %w", l.Code, s, o.seeds[jb.seed], err)
+						cancel()
+					}
+				} else {
+					out[jb.setting][jb.lang][jb.seed] = res
+					done++
+					fmt.Fprintf(os.Stderr, "aligneval: [%d/%d] %s, %s, seed %d: token F %.3f, P@1 %.2f (%d judged) in %s\n",
+						done, len(jobs), l.Code, s, o.seeds[jb.seed], res.Scores.Token.F, res.Gloss.P1(), res.Gloss.Judged, time.Since(t).Round(time.Second))
+				}
+				mu.Unlock()
+			}
+		}()
+	}
+	for _, jb := range jobs {
+		if ctx.Err() != nil {
+			break
+		}
+		next <- jb
+	}
+	close(next)
+	wg.Wait()
+	if firstErr != nil {
+		return nil, 0, firstErr
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, 0, err
+	}
+	return out, workers, nil
+}
+
+// runOne learns l under s with one seed and scores the result.
+func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, seed uint64) (Outcome, error) {
+	cfg := s.config(o, seed)
+	var opts segment.RunOptions
+	if !s.baseline() {
+		opts.Factor = translationFactor(l.Tokens, cfg)
+	}
+	res, err := segment.Run(ctx, l.Corpus, cfg, nil, opts)
+	if err != nil {
+		return Outcome{}, err
+	}
+	pred := make([][]string, l.Corpus.Len())
+	for u := range pred {
+		pred[u] = res.Decoded.WordStrings(u)
+	}
+	sc, err := score.Compare(l.Gold, pred)
+	if err != nil {
+		return Outcome{}, err
+	}
+	g := EvalGlosses(res.Decoded, res.Posterior, l.Tokens, l.Spellings, j, o.glossMin, nil)
+	return Outcome{Scores: sc, Gloss: g}, nil
+}
+
+// translationFactor builds the translation factor exactly as 'juncture
+// learn --translations' does (cmd/juncture/translations.go): the table is
+// re-estimated by 10 EM iterations from the segmentation at the start of
+// every block, with smoothing beta = 1.
+func translationFactor(tokens [][]string, cfg segment.Config) segment.FactorBuilder {
+	return func(words [][]int32) segment.UtteranceFactor {
+		return align.NewFactor(tokens, 1, words, 10, cfg.TranslationMinCount)
+	}
+}

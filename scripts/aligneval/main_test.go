@@ -1,0 +1,110 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"math"
+	"reflect"
+	"strings"
+	"testing"
+)
+
+func TestSummarize(t *testing.T) {
+	s := Summarize([]float64{0.2, 0.4, 0.3})
+	if math.Abs(s.Mean-0.3) > 1e-12 || s.Min != 0.2 || s.Max != 0.4 || s.N != 3 {
+		t.Errorf("got %+v", s)
+	}
+	if got := s.format(false); got != "0.300 [0.200, 0.400]" {
+		t.Errorf("format = %q", got)
+	}
+	if got := Summarize([]float64{-0.0125}).format(true); got != "-0.013" && got != "-0.012" {
+		t.Errorf("signed format = %q", got)
+	}
+	if got := Summarize([]float64{0.01, -0.02}).format(true); got != "-0.005 [-0.020, +0.010]" {
+		t.Errorf("signed range = %q", got)
+	}
+}
+
+func TestGlossCounts(t *testing.T) {
+	c := GlossCounts{Types: 10, Glossed: 9, Real: 7, Judged: 5, Hit1: 2, Hit3: 4}
+	if c.NonWords() != 2 || c.P1() != 0.4 || c.P3() != 0.8 || c.P1Strict() != 2.0/7 {
+		t.Errorf("%+v: non-words %d, P@1 %v, P@3 %v, strict %v", c, c.NonWords(), c.P1(), c.P3(), c.P1Strict())
+	}
+	if (GlossCounts{}).P1() != 0 {
+		t.Error("P@1 of nothing judged is not 0")
+	}
+}
+
+func TestParseFlags(t *testing.T) {
+	o, err := parseFlags([]string{"-langs", "spa, fin", "-weights", "0,0.3,1", "-min-count", "5,10", "-model", "unigram,bigram"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := o.settings()
+	if len(got) != 2*(1+2*2) || !got[0].baseline() || got[1] != (Setting{"unigram", "boundary", 0.3, 5}) || got[5].Model != "bigram" {
+		t.Errorf("settings %v", got)
+	}
+	for _, args := range [][]string{
+		{"-weights", "0,-1"},
+		{"-seeds", "x"},
+		{"-dicts", "some"},
+		{"-procs", "0"},
+		{"-langs", ""},
+		{"extra"},
+	} {
+		if _, err := parseFlags(args); err == nil {
+			t.Errorf("parseFlags(%q) gave no error", args)
+		}
+	}
+}
+
+// TestRunDeterministic learns the Spanish corpus briefly with and without
+// the prior and checks that the outcomes do not depend on how many runs go
+// at once, and that the report has a row per setting and language.
+func TestRunDeterministic(t *testing.T) {
+	if testing.Short() {
+		t.Skip("learns on real data")
+	}
+	dir := t.TempDir()
+	// A two-entry Spanish-English dictionary in both directions.
+	writeDictd(t, dir, "freedict-spa-eng", []string{"de", "derecho"}, []string{"de /dˈe/\n1. from, of\n", "derecho /deɾˈetʃo/\nright\n"})
+	writeDictd(t, dir, "freedict-eng-spa", []string{"the"}, []string{"the /ð/\nel, la, las, lo, los\n"})
+	var outcomes [][][]Outcome
+	for _, procs := range []string{"1", "3"} {
+		o, err := parseFlags([]string{"-data", "../../data/eval/udhr", "-langs", "spa", "-dict-dir", dir,
+			"-iterations", "4", "-seeds", "1,2", "-weights", "0,1", "-min-count", "2", "-procs", procs})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var buf bytes.Buffer
+		rep, err := buildReport(context.Background(), o)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := rep.WriteMarkdown(&buf); err != nil {
+			t.Fatal(err)
+		}
+		if outcomes != nil && !reflect.DeepEqual(rep.Outcomes, outcomes) {
+			t.Errorf("-procs %s changed the outcomes", procs)
+		}
+		outcomes = rep.Outcomes
+		md := buf.String()
+		for _, want := range []string{
+			"| unigram/boundary, no prior | spa |",
+			"| unigram/boundary, weight 1, min-count 2 | all |",
+			"| gold segmentation | spa |",
+			"- spa: spa-eng (forward, 2 index rows); eng-spa (reverse, 1 index rows)",
+		} {
+			if !strings.Contains(md, want) {
+				t.Errorf("report lacks %q:\n%s", want, md)
+			}
+		}
+	}
+	for _, byLang := range outcomes {
+		for _, o := range byLang[0] {
+			if o.Scores.Utterances != 60 || o.Gloss.Types == 0 {
+				t.Errorf("outcome %+v", o)
+			}
+		}
+	}
+}
