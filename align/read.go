@@ -2,25 +2,25 @@ package align
 
 import (
 	"bufio"
-	"bytes"
 	"errors"
 	"fmt"
 	"io"
 	"strings"
 	"unicode/utf8"
 
+	"github.com/juncture-project/juncture/segment/textline"
 	"golang.org/x/text/unicode/norm"
 )
 
 // MaxLineBytes is the longest line accepted in a translation, stop-word
 // or TSV file, in bytes. It is the transcript reader's limit.
-const MaxLineBytes = 1 << 20
+const MaxLineBytes = textline.MaxBytes
 
 // Errors reported by the readers, wrapped in a *ParseError.
 var (
 	ErrInvalidUTF8 = errors.New("invalid UTF-8")
 	ErrNUL         = errors.New("NUL character")
-	ErrLineTooLong = fmt.Errorf("line longer than %d bytes", MaxLineBytes)
+	ErrLineTooLong = textline.ErrTooLong
 )
 
 // ParseError is an error at a place in a named file. It has the same form
@@ -146,7 +146,7 @@ func eachLine(r io.Reader, name string, f func(line string, lineNo int) error) e
 		br.Discard(len(byteOrderMark))
 	}
 	for lineNo := 1; ; lineNo++ {
-		line, err := readLine(br)
+		line, err := textline.Read(br)
 		if err == io.EOF && line == nil {
 			return nil
 		}
@@ -175,33 +175,6 @@ func eachLine(r io.Reader, name string, f func(line string, lineNo int) error) e
 
 // byteOrderMark is U+FEFF encoded in UTF-8.
 const byteOrderMark = "\uFEFF"
-
-// readLine returns the next line without its line ending ("\n" or "\r\n").
-// A line longer than MaxLineBytes is returned, cut to at least
-// MaxLineBytes+1 bytes, with ErrLineTooLong. At the end of r it returns
-// nil, io.EOF; a last line without a line ending comes with io.EOF.
-func readLine(br *bufio.Reader) ([]byte, error) {
-	var buf []byte
-	for {
-		frag, err := br.ReadSlice('\n')
-		buf = append(buf, frag...)
-		if err == bufio.ErrBufferFull {
-			if len(buf) > MaxLineBytes+len("\r\n") {
-				return buf, ErrLineTooLong
-			}
-			continue
-		}
-		if err == io.EOF && len(buf) == 0 {
-			return nil, io.EOF
-		}
-		buf = bytes.TrimSuffix(buf, []byte("\n"))
-		buf = bytes.TrimSuffix(buf, []byte("\r"))
-		if len(buf) > MaxLineBytes {
-			return buf, ErrLineTooLong
-		}
-		return buf, err
-	}
-}
 
 // checkText returns a *ParseError, without name and line, at the first
 // invalid UTF-8 sequence or NUL of line.

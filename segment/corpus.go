@@ -2,13 +2,13 @@ package segment
 
 import (
 	"bufio"
-	"bytes"
 	"errors"
 	"fmt"
 	"io"
 	"strings"
 	"unicode/utf8"
 
+	"github.com/juncture-project/juncture/segment/textline"
 	"golang.org/x/text/unicode/norm"
 )
 
@@ -19,7 +19,7 @@ type Unit uint16
 const MaxUnits = 1 << 16
 
 // MaxLineBytes is the longest transcript line accepted, in bytes.
-const MaxLineBytes = 1 << 20
+const MaxLineBytes = textline.MaxBytes
 
 // Lock is a decision about one gap that sampling must not change.
 type Lock int8
@@ -85,7 +85,7 @@ func (e *PositionError) Unwrap() error { return e.Err }
 var (
 	ErrInvalidUTF8 = errors.New("invalid UTF-8")
 	ErrNUL         = errors.New("NUL character")
-	ErrLineTooLong = fmt.Errorf("line longer than %d bytes", MaxLineBytes)
+	ErrLineTooLong = textline.ErrTooLong
 	ErrUnknownUnit = errors.New("character outside the unit inventory")
 	ErrTooManyUnit = fmt.Errorf("more than %d distinct units", MaxUnits)
 )
@@ -106,7 +106,7 @@ func ReadCorpus(r io.Reader, name string, opts ReadOptions) (*Corpus, error) {
 	var locks []Lock
 	anyLock := false
 	for {
-		line, err := readLine(br)
+		line, err := textline.Read(br)
 		if err == io.EOF && line == nil {
 			break
 		}
@@ -153,32 +153,6 @@ const byteOrderMark = "\uFEFF"
 // AddUtterance.
 func NewCorpus(name string) *Corpus {
 	return &Corpus{Name: name, Starts: []int{0}, unitIDs: map[string]Unit{}}
-}
-
-// readLine returns the next line without its line ending ("\n" or "\r\n").
-// A line longer than MaxLineBytes is returned cut to its first
-// MaxLineBytes+1 bytes or more, with ErrLineTooLong.
-func readLine(br *bufio.Reader) ([]byte, error) {
-	var buf []byte
-	for {
-		frag, err := br.ReadSlice('\n')
-		buf = append(buf, frag...)
-		if err == bufio.ErrBufferFull {
-			if len(buf) > MaxLineBytes+len("\r\n") {
-				return buf, ErrLineTooLong
-			}
-			continue
-		}
-		if err == io.EOF && len(buf) == 0 {
-			return nil, io.EOF
-		}
-		buf = bytes.TrimSuffix(buf, []byte("\n"))
-		buf = bytes.TrimSuffix(buf, []byte("\r"))
-		if len(buf) > MaxLineBytes {
-			return buf, ErrLineTooLong
-		}
-		return buf, err
-	}
 }
 
 // column returns the 1-based column, in characters of the NFC-normalised

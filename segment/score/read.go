@@ -9,17 +9,18 @@ import (
 	"strings"
 	"unicode/utf8"
 
+	"github.com/juncture-project/juncture/segment/textline"
 	"golang.org/x/text/unicode/norm"
 )
 
 // MaxLineBytes is the longest line ReadSegmented accepts, in bytes.
-const MaxLineBytes = 1 << 20
+const MaxLineBytes = textline.MaxBytes
 
 // Errors reported by ReadSegmented, wrapped in a *ParseError.
 var (
 	ErrInvalidUTF8 = errors.New("invalid UTF-8")
 	ErrNUL         = errors.New("NUL character")
-	ErrLineTooLong = fmt.Errorf("line longer than %d bytes", MaxLineBytes)
+	ErrLineTooLong = textline.ErrTooLong
 )
 
 // ParseError is an error at a place in a named segmented file.
@@ -59,7 +60,7 @@ func ReadSegmented(r io.Reader, name string) ([][]string, []int, error) {
 		lines      []int
 	)
 	for lineNo := 1; ; lineNo++ {
-		raw, err := readLine(br)
+		raw, err := textline.Read(br)
 		if err == io.EOF && raw == nil {
 			break
 		}
@@ -89,32 +90,6 @@ func ReadSegmented(r io.Reader, name string) ([][]string, []int, error) {
 
 // isSeparator reports whether c separates words in a segmented line.
 func isSeparator(c rune) bool { return c == ' ' || c == '\t' || c == '\r' }
-
-// readLine returns the next line of br without its line ending (LF or
-// CRLF). It returns io.EOF with the last line if that has no newline, or
-// with nil at the end. A line over MaxLineBytes gives ErrLineTooLong.
-func readLine(br *bufio.Reader) ([]byte, error) {
-	var line []byte
-	for {
-		frag, err := br.ReadSlice('\n')
-		line = append(line, frag...)
-		if err == bufio.ErrBufferFull {
-			if len(line) > MaxLineBytes+1 { // +1 for a CR before the newline
-				return nil, ErrLineTooLong
-			}
-			continue
-		}
-		if err == io.EOF && len(line) == 0 {
-			return nil, io.EOF
-		}
-		line = bytes.TrimSuffix(line, []byte("\n"))
-		line = bytes.TrimSuffix(line, []byte("\r"))
-		if len(line) > MaxLineBytes {
-			return nil, ErrLineTooLong
-		}
-		return line, err
-	}
-}
 
 // checkLine returns the 1-based character column and the error of the first
 // invalid UTF-8 sequence or NUL in line.
