@@ -18,8 +18,8 @@ const MaxLineBytes = textline.MaxBytes
 
 // Errors reported by the readers, wrapped in a *ParseError.
 var (
-	ErrInvalidUTF8 = errors.New("invalid UTF-8")
-	ErrNUL         = errors.New("NUL character")
+	ErrInvalidUTF8 = textline.ErrInvalidUTF8
+	ErrNUL         = textline.ErrNUL
 	ErrLineTooLong = textline.ErrTooLong
 )
 
@@ -179,15 +179,8 @@ const byteOrderMark = "\uFEFF"
 // checkText returns a *ParseError, without name and line, at the first
 // invalid UTF-8 sequence or NUL of line.
 func checkText(line []byte) *ParseError {
-	for i := 0; i < len(line); {
-		r, size := utf8.DecodeRune(line[i:])
-		switch {
-		case r == utf8.RuneError && size == 1:
-			return &ParseError{Column: charColumn(line, i), Err: ErrInvalidUTF8}
-		case r == 0:
-			return &ParseError{Column: charColumn(line, i), Err: ErrNUL}
-		}
-		i += size
+	if col, err := textline.Check(line); err != nil {
+		return &ParseError{Column: col, Err: err}
 	}
 	return nil
 }

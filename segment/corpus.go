@@ -83,8 +83,8 @@ func (e *PositionError) Unwrap() error { return e.Err }
 
 // Errors reported by ReadCorpus, wrapped in a *PositionError.
 var (
-	ErrInvalidUTF8 = errors.New("invalid UTF-8")
-	ErrNUL         = errors.New("NUL character")
+	ErrInvalidUTF8 = textline.ErrInvalidUTF8
+	ErrNUL         = textline.ErrNUL
 	ErrLineTooLong = textline.ErrTooLong
 	ErrUnknownUnit = errors.New("character outside the unit inventory")
 	ErrTooManyUnit = fmt.Errorf("more than %d distinct units", MaxUnits)
@@ -165,15 +165,8 @@ func column(raw []byte, i int) int {
 // splitLine validates one line, splits it into units and interns them.
 // Returned locks hold one entry per unit.
 func (c *Corpus) splitLine(raw []byte, opts ReadOptions) ([]Unit, []Lock, *PositionError) {
-	for i := 0; i < len(raw); {
-		r, size := utf8.DecodeRune(raw[i:])
-		if r == utf8.RuneError && size == 1 {
-			return nil, nil, &PositionError{Column: column(raw, i), Err: ErrInvalidUTF8}
-		}
-		if r == 0 {
-			return nil, nil, &PositionError{Column: column(raw, i), Err: ErrNUL}
-		}
-		i += size
+	if col, err := textline.Check(raw); err != nil {
+		return nil, nil, &PositionError{Column: col, Err: err}
 	}
 	line := norm.NFC.String(string(raw))
 	var units []Unit

@@ -7,7 +7,6 @@ import (
 	"fmt"
 	"io"
 	"strings"
-	"unicode/utf8"
 
 	"github.com/juncture-project/juncture/segment/textline"
 	"golang.org/x/text/unicode/norm"
@@ -18,8 +17,8 @@ const MaxLineBytes = textline.MaxBytes
 
 // Errors reported by ReadSegmented, wrapped in a *ParseError.
 var (
-	ErrInvalidUTF8 = errors.New("invalid UTF-8")
-	ErrNUL         = errors.New("NUL character")
+	ErrInvalidUTF8 = textline.ErrInvalidUTF8
+	ErrNUL         = textline.ErrNUL
 	ErrLineTooLong = textline.ErrTooLong
 )
 
@@ -27,7 +26,8 @@ var (
 type ParseError struct {
 	Name string
 	Line int // 1-based
-	// Column is 1-based and counts characters (runes) of the line as read;
+	// Column is 1-based and counts characters (runes) of the line
+	// normalised to NFC, as the transcript reader's do;
 	// 0 when the error concerns the whole line.
 	Column int
 	Err    error
@@ -73,7 +73,7 @@ func ReadSegmented(r io.Reader, name string) ([][]string, []int, error) {
 		if lineNo == 1 {
 			raw = bytes.TrimPrefix(raw, []byte("\uFEFF"))
 		}
-		if col, err := checkLine(raw); err != nil {
+		if col, err := textline.Check(raw); err != nil {
 			return nil, nil, &ParseError{Name: name, Line: lineNo, Column: col, Err: err}
 		}
 		words := strings.FieldsFunc(string(norm.NFC.Bytes(raw)), isSeparator)
@@ -90,22 +90,3 @@ func ReadSegmented(r io.Reader, name string) ([][]string, []int, error) {
 
 // isSeparator reports whether c separates words in a segmented line.
 func isSeparator(c rune) bool { return c == ' ' || c == '\t' || c == '\r' }
-
-// checkLine returns the 1-based character column and the error of the first
-// invalid UTF-8 sequence or NUL in line.
-func checkLine(line []byte) (int, error) {
-	if utf8.Valid(line) && bytes.IndexByte(line, 0) < 0 {
-		return 0, nil
-	}
-	for i, col := 0, 1; i < len(line); col++ {
-		r, size := utf8.DecodeRune(line[i:])
-		switch {
-		case r == utf8.RuneError && size == 1:
-			return col, ErrInvalidUTF8
-		case r == 0:
-			return col, ErrNUL
-		}
-		i += size
-	}
-	panic("unreachable: line is invalid but no bad character was found")
-}

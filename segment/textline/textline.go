@@ -6,8 +6,12 @@ package textline
 import (
 	"bufio"
 	"bytes"
+	"errors"
 	"fmt"
 	"io"
+	"unicode/utf8"
+
+	"golang.org/x/text/unicode/norm"
 )
 
 // MaxBytes is the longest line accepted, in bytes, without its line ending.
@@ -41,4 +45,31 @@ func Read(br *bufio.Reader) ([]byte, error) {
 		}
 		return buf, err
 	}
+}
+
+// Errors in the text of a line.
+var (
+	ErrInvalidUTF8 = errors.New("invalid UTF-8")
+	ErrNUL         = errors.New("NUL character")
+)
+
+// Check returns the column and error of the first invalid UTF-8 sequence or
+// NUL character of line, or 0 and nil. The column is 1-based and counts
+// characters of the line normalised to NFC, the convention of every
+// juncture reader's messages (an invalid byte counts as one character).
+func Check(line []byte) (column int, err error) {
+	if utf8.Valid(line) && bytes.IndexByte(line, 0) < 0 {
+		return 0, nil
+	}
+	for i := 0; i < len(line); {
+		r, size := utf8.DecodeRune(line[i:])
+		switch {
+		case r == utf8.RuneError && size == 1:
+			return utf8.RuneCount(norm.NFC.Bytes(line[:i])) + 1, ErrInvalidUTF8
+		case r == 0:
+			return utf8.RuneCount(norm.NFC.Bytes(line[:i])) + 1, ErrNUL
+		}
+		i += size
+	}
+	panic("textline: line is invalid but no bad character was found")
 }

@@ -52,3 +52,24 @@ func TestReadLimit(t *testing.T) {
 		}
 	}
 }
+
+// TestCheck: columns count characters of the NFC line, so a decomposed
+// "é" before the fault counts once.
+func TestCheck(t *testing.T) {
+	tests := []struct {
+		in  string
+		col int
+		err error
+	}{
+		{"abc", 0, nil},
+		{"ab\xffc", 3, ErrInvalidUTF8},
+		{"e\u0301x\x00", 3, ErrNUL},
+		{"\xff", 1, ErrInvalidUTF8},
+	}
+	for _, tc := range tests {
+		col, err := Check([]byte(tc.in))
+		if col != tc.col || !errors.Is(err, tc.err) || (tc.err == nil) != (err == nil) {
+			t.Errorf("Check(%q) = %d, %v; want %d, %v", tc.in, col, err, tc.col, tc.err)
+		}
+	}
+}
