@@ -36,8 +36,7 @@ type BlockedSampler struct {
 
 	journal journal
 	marks   []int
-	accepts int
-	steps   int
+	acceptance
 
 	// Scratch space reused across utterances, so sweeps do not allocate
 	// once it has grown to the longest utterance.
@@ -63,14 +62,6 @@ func NewBlockedSampler(s *Segmentation, m *Words, maxWordLength int, rng *rand.R
 	}
 	m.AddSegmentation(s, rng)
 	return &BlockedSampler{Seg: s, Model: m, MaxWordLength: maxWordLength}
-}
-
-// AcceptanceRate returns the fraction of accepted proposals so far.
-func (g *BlockedSampler) AcceptanceRate() float64 {
-	if g.steps == 0 {
-		return 0
-	}
-	return float64(g.accepts) / float64(g.steps)
 }
 
 // Sweep resamples every utterance once, in corpus order. At temperature

@@ -156,8 +156,19 @@ type sampler interface {
 	resetRate()
 }
 
-func (g *WordsGibbs) resetRate()     { g.accepts, g.steps = 0, 0 }
-func (g *BlockedSampler) resetRate() { g.accepts, g.steps = 0, 0 }
+// acceptance counts a Metropolis-Hastings sampler's proposals.
+type acceptance struct{ accepts, steps int }
+
+// AcceptanceRate returns the fraction of accepted proposals since the
+// counts were last reset.
+func (a *acceptance) AcceptanceRate() float64 {
+	if a.steps == 0 {
+		return 0
+	}
+	return float64(a.accepts) / float64(a.steps)
+}
+
+func (a *acceptance) resetRate() { a.accepts, a.steps = 0, 0 }
 
 // temperature returns the temperature of iteration k: the schedule runs
 // over the burn-in and sampling after it is at temperature 1.

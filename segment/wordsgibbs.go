@@ -34,8 +34,7 @@ type WordsGibbs struct {
 
 	journal journal
 	marks   []int
-	accepts int
-	steps   int
+	acceptance
 }
 
 // NewWordsGibbs seats s in m and returns a sampler over both. m must be
@@ -46,14 +45,6 @@ func NewWordsGibbs(s *Segmentation, m *Words, rng *rand.Rand) *WordsGibbs {
 	}
 	m.AddSegmentation(s, rng)
 	return &WordsGibbs{Seg: s, Model: m}
-}
-
-// AcceptanceRate returns the fraction of accepted proposals so far.
-func (g *WordsGibbs) AcceptanceRate() float64 {
-	if g.steps == 0 {
-		return 0
-	}
-	return float64(g.accepts) / float64(g.steps)
 }
 
 // Sweep visits every free gap once, in corpus order, with the acceptance
