@@ -152,7 +152,13 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	var logQOld, logQNew float64
 	newB := g.growScratch(L, K)
 	if m.Order == 1 || g.UnigramProposal {
-		logQOld, logQNew = g.unigramProposal(us, ue, K, inv, newB, rng)
+		ok := false
+		if ub, uniform := m.Base.(UniformBase); uniform {
+			logQOld, logQNew, ok = g.unigramProposalLinear(ub, us, ue, K, inv, newB, rng)
+		}
+		if !ok {
+			logQOld, logQNew = g.unigramProposal(us, ue, K, inv, newB, rng)
+		}
 	} else {
 		logQOld, logQNew = g.bigramProposal(us, ue, K, inv, newB, rng)
 	}
@@ -344,19 +350,33 @@ func (g *BlockedSampler) unigramProposal(us, ue, K int, inv float64, newB []bool
 	}
 	logQNew -= logZ
 	// The old segmentation's proposal probability.
+	logQOld = g.oldLogQ(us, ue, K, func(t, k int) float64 {
+		if !spanOK(c, us, ue, us+t-k, us+t) {
+			return math.Inf(-1)
+		}
+		return g.term[t*W+k]
+	})
+	return logQOld - logZ, logQNew
+}
+
+// oldLogQ returns the sum of wordLogQ(t, k) over the words of the current
+// segmentation of [us, ue), each ending t units into the utterance and k
+// units long, or -Inf if one is longer than K.
+func (g *BlockedSampler) oldLogQ(us, ue, K int, wordLogQ func(t, k int) float64) float64 {
 	b := g.Seg.Boundary
+	sum := 0.0
 	w0 := us
 	for i := us + 1; i <= ue; i++ {
 		if i == ue || b[i] {
 			k := i - w0
-			if k > K || !spanOK(c, us, ue, w0, i) {
-				return math.Inf(-1), logQNew
+			if k > K {
+				return math.Inf(-1)
 			}
-			logQOld += g.term[(i-us)*W+k]
+			sum += wordLogQ(i-us, k)
 			w0 = i
 		}
 	}
-	return logQOld - logZ, logQNew
+	return sum
 }
 
 // bigramTerm returns log P(span [t-k, t) | previous word of length j) for
