@@ -21,6 +21,7 @@ func benchCorpus(b *testing.B) *Corpus {
 		if err != nil {
 			b.Fatal(err)
 		}
+		c.IndexSpans(24) // as Run does
 		return c
 	}
 	b.Skip("no corpus")

@@ -41,6 +41,9 @@ func TestBlockedExactPosterior(t *testing.T) {
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
 			c := tinyCorpus(t, tc.lines...)
+			if i%2 == 1 {
+				c.IndexSpans(3) // the index for short spans, hashing for longer ones
+			}
 			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
 			post := exact.Posterior(c, func(s *Segmentation) float64 {

@@ -66,6 +66,7 @@ type Corpus struct {
 
 	keys    []byte // units as little-endian uint16, for map lookups without allocation
 	unitIDs map[string]Unit
+	forms   *spanForms // see IndexSpans
 }
 
 // PositionError is an error at a place in a named file.

@@ -164,6 +164,7 @@ func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState, opts 
 	if len(states) != cfg.Chains {
 		return nil, fmt.Errorf("have %d chain states for %d chains", len(states), cfg.Chains)
 	}
+	c.IndexSpans(spanIndexLength(cfg))
 	var mu sync.Mutex
 	tick := func() {
 		if opts.Progress != nil {
@@ -247,4 +248,14 @@ func finished(cfg Config, states []*ChainState) bool {
 		}
 	}
 	return true
+}
+
+// spanIndexLength is the longest span the corpus index covers: the
+// blocked sampler's longest word, at most 32 units, so that the index of
+// a corpus of long utterances stays within 32 entries per unit.
+func spanIndexLength(cfg Config) int {
+	if k := cfg.MaxWordLength; k > 0 && k < 32 {
+		return k
+	}
+	return 32
 }

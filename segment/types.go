@@ -26,6 +26,13 @@ type Types struct {
 	hashes []uint64 // hashes[t]: hash of type t's key
 	slots  []int32  // open addressing: type+1, or 0 for empty
 	corpus *Corpus  // the corpus whose spans First points into
+
+	// forms is the corpus's span index when the table was first used
+	// (nil if it had none); formType[f] is then the type of form f plus
+	// one, or 0. Every type is in the hash table too; spans the index
+	// covers are looked up through it.
+	forms    *spanForms
+	formType []int32
 }
 
 // typeSeed makes hashes differ between processes, which only changes the
@@ -62,6 +69,10 @@ func (t *Types) Lookup(c *Corpus, start, end int) (WordType, bool) {
 	if t.corpus == nil {
 		return -1, false
 	}
+	if f := t.forms.form(start, end); f >= 0 {
+		v := t.formType[f]
+		return WordType(v - 1), v > 0
+	}
 	key := c.Key(start, end)
 	_, id := t.find(c, key, maphash.Bytes(typeSeed, key))
 	return id, id >= 0
@@ -73,8 +84,15 @@ func (t *Types) Lookup(c *Corpus, start, end int) (WordType, bool) {
 func (t *Types) Intern(c *Corpus, start, end int) (WordType, bool) {
 	if t.corpus == nil {
 		t.corpus = c
+		if t.forms = c.forms; t.forms != nil {
+			t.formType = make([]int32, t.forms.n)
+		}
 	} else if t.corpus != c {
 		panic("segment: Types used with two corpora")
+	}
+	f := t.forms.form(start, end)
+	if f >= 0 && t.formType[f] > 0 {
+		return WordType(t.formType[f] - 1), false
 	}
 	key := c.Key(start, end)
 	h := maphash.Bytes(typeSeed, key)
@@ -88,6 +106,9 @@ func (t *Types) Intern(c *Corpus, start, end int) (WordType, bool) {
 	t.LogBase = append(t.LogBase, 0)
 	t.hashes = append(t.hashes, h)
 	t.slots[slot] = int32(id) + 1
+	if f >= 0 {
+		t.formType[f] = int32(id) + 1
+	}
 	if 2*len(t.Length) > len(t.slots) {
 		t.grow()
 	}
@@ -125,6 +146,10 @@ func (t *Types) Truncate(n int) {
 	}
 	mask := len(t.slots) - 1
 	for id := len(t.Length) - 1; id >= n; id-- {
+		s := int(t.First[id])
+		if f := t.forms.form(s, s+int(t.Length[id])); f >= 0 {
+			t.formType[f] = 0
+		}
 		for i := int(t.hashes[id]) & mask; ; i = (i + 1) & mask {
 			if t.slots[i] == int32(id)+1 {
 				t.slots[i] = 0
