@@ -160,7 +160,13 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 			logQOld, logQNew = g.unigramProposal(us, ue, K, inv, newB, rng)
 		}
 	} else {
-		logQOld, logQNew = g.bigramProposal(us, ue, K, inv, newB, rng)
+		ok := false
+		if ub, uniform := m.Base.(UniformBase); uniform {
+			logQOld, logQNew, ok = g.bigramProposalLinear(ub, us, ue, K, inv, newB, rng)
+		}
+		if !ok {
+			logQOld, logQNew = g.bigramProposal(us, ue, K, inv, newB, rng)
+		}
 	}
 
 	// Seat the proposal, multiplying its predictives.

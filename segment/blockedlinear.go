@@ -23,30 +23,12 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 	L := ue - us
 	W := K + 1
 
-	// Word-independent factors: the continuation of the utterance (order
-	// 1, see unigramProposal), the base's share, the base by length.
-	share := 1.0
-	if m.Order == 2 {
-		share = 1 - m.EndBase
-	}
+	// The continuation of the utterance, a word-independent factor (see
+	// unigramProposal).
 	h := m.Rho / 2
 	N := float64(m.tokens)
 	cont := (N - float64(m.utterances-1) + h) / (N + m.Rho)
-	p0 := g.cum[:W] // p0[k]: share * P0 of a word of k units
-	q := (1 - ub.WordEnd) / float64(ub.Units)
-	v := share * ub.WordEnd / float64(ub.Units)
-	for k := 1; k < W; k++ {
-		p0[k] = v
-		v *= q
-	}
-	r := m.uni
-	d, a := r.params.Discount, r.params.Concentration
-	tot, tables := r.totals(0)
-	norm := 1 / (tot + a)
-	newW := a + d*tables
-	if tot == 0 {
-		norm, newW = 1, 1
-	}
+	up := g.newUniLinear(ub, K)
 
 	term := g.term
 	invc := g.fwd // invc[t] = 1/c_t
@@ -61,13 +43,8 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 					ratio *= invc[t-k+1]
 				}
 				if spanOK(c, us, ue, us+t-k, us+t) {
-					x = newW * p0[k]
-					if w := m.lookupSpan(us+t-k, us+t); w >= 0 {
-						if ds := r.seating(0, w, false); ds != nil && ds.customers > 0 {
-							x += float64(ds.customers) - d*float64(ds.tables)
-						}
-					}
-					x *= norm * cont
+					_, x = up.prob(m, us+t-k, us+t)
+					x *= cont
 					if inv != 1 {
 						x = math.Exp(inv * math.Log(x))
 					}
@@ -119,4 +96,212 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 	// word the lattice excludes).
 	logQOld = g.oldLogQ(us, ue, K, func(t, k int) float64 { return math.Log(term[t*W+k]) })
 	return logQOld - logZ, logQNew, true
+}
+
+// uniLinear computes unigram-level predictive probabilities of spans for
+// a model with a UniformBase.
+type uniLinear struct {
+	p0            []float64 // p0[k]: the base's share times P0 of a word of k units
+	d, newW, norm float64
+	r             *restaurants
+}
+
+// newUniLinear prepares uniLinear for words of up to K units, in g.cum.
+func (g *BlockedSampler) newUniLinear(ub UniformBase, K int) uniLinear {
+	m := g.Model
+	share := 1.0
+	if m.Order == 2 {
+		share = 1 - m.EndBase
+	}
+	u := uniLinear{p0: g.cum[:K+1], r: m.uni}
+	q := (1 - ub.WordEnd) / float64(ub.Units)
+	v := share * ub.WordEnd / float64(ub.Units)
+	for k := 1; k <= K; k++ {
+		u.p0[k] = v
+		v *= q
+	}
+	tot, tables := m.uni.totals(0)
+	u.d = m.uni.params.Discount
+	u.norm = 1 / (tot + m.uni.params.Concentration)
+	u.newW = m.uni.params.Concentration + u.d*tables
+	if tot == 0 {
+		u.norm, u.newW = 1, 1
+	}
+	return u
+}
+
+// prob returns the type of span [a, b) (-2 if not interned) and its
+// unigram-level predictive probability.
+func (u *uniLinear) prob(m *Words, a, b int) (WordType, float64) {
+	x := u.newW * u.p0[b-a]
+	w := m.lookupSpan(a, b)
+	if w >= 0 {
+		if ds := u.r.seating(0, w, false); ds != nil && ds.customers > 0 {
+			x += float64(ds.customers) - u.d*float64(ds.tables)
+		}
+	}
+	return w, x * u.norm
+}
+
+// powInv returns x^inv, skipping the work at temperature 1.
+func powInv(x, inv float64) float64 {
+	if inv == 1 {
+		return x
+	}
+	return math.Exp(inv * math.Log(x))
+}
+
+// bigramProposalLinear is bigramProposal computed with probabilities, for
+// a model whose base is a UniformBase, scaled as in unigramProposalLinear:
+// with c_t the sum over k of the scaled forward variables at t, a word
+// [t-k, t) enters with weight term * prod_{t-k<i<t} 1/c_i, and
+// log Z = sum_t log c_t + log sum_k f[L][k] P(End | k). ok is false, with
+// newB untouched, if the sums leave the floating-point range.
+func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv float64, newB []bool, rng *rand.Rand) (logQOld, logQNew float64, ok bool) {
+	m := g.Model
+	c := m.Corpus
+	L := ue - us
+	W := K + 1
+	up := g.newUniLinear(ub, K)
+	ids, uni, term, fwd := g.ids, g.uni, g.term, g.fwd
+	for t := 1; t <= L; t++ {
+		for k := 1; k < W; k++ {
+			ids[t*W+k], uni[t*W+k] = -2, 0
+			if k <= t && spanOK(c, us, ue, us+t-k, us+t) {
+				ids[t*W+k], uni[t*W+k] = up.prob(m, us+t-k, us+t)
+			}
+		}
+	}
+	invc := g.cum2[:0]
+	invc = append(invc, 1)
+	logZ := 0.0
+	for t := 1; t <= L; t++ {
+		sum, ratio := 0.0, 1.0
+		for k := 1; k < W; k++ {
+			idx := t*W + k
+			if k > 1 && k <= t {
+				ratio *= invc[t-k+1]
+			}
+			raw := 0.0
+			if k <= t && uni[idx] > 0 {
+				if k == t {
+					x := powInv(g.bigramTermLinear(t, k, 0, W), inv)
+					term[idx*W] = x
+					raw = x
+				} else {
+					term[idx*W] = 0
+					for j := 1; j < W; j++ {
+						x := 0.0
+						if j <= t-k && fwd[(t-k)*W+j] > 0 {
+							x = powInv(g.bigramTermLinear(t, k, j, W), inv)
+							raw += fwd[(t-k)*W+j] * x
+						}
+						term[idx*W+j] = x
+					}
+				}
+				raw *= ratio
+			}
+			fwd[idx] = raw
+			sum += raw
+		}
+		if !(sum > 0) || math.IsInf(sum, 1) || math.IsInf(ratio, 1) {
+			return 0, 0, false
+		}
+		for k := 1; k < W; k++ {
+			fwd[t*W+k] /= sum
+		}
+		invc = append(invc, 1/sum)
+		logZ += math.Log(sum)
+	}
+	g.cum2 = invc
+
+	// The End word after the last word of length k.
+	ends := g.cum[:W]
+	endUni := math.Exp(m.logUnigram(End))
+	total := 0.0
+	for k := 1; k < W; k++ {
+		ends[k] = 0
+		if fwd[L*W+k] > 0 {
+			ends[k] = powInv(g.endTermLinear(L, k, W, endUni), inv)
+			total += fwd[L*W+k] * ends[k]
+		}
+	}
+	if !(total > 0) || math.IsInf(total, 1) {
+		return 0, 0, false
+	}
+	logZ += math.Log(total)
+
+	// Backward sampling.
+	k := pickProduct(fwd[L*W:L*W+W], ends, total, rng)
+	logQNew = math.Log(ends[k])
+	for t := L; ; {
+		idx := t*W + k
+		if k == t {
+			logQNew += math.Log(term[idx*W])
+			break
+		}
+		n := min(W, t-k+1)
+		prevFwd, terms := fwd[(t-k)*W:(t-k)*W+n], term[idx*W:idx*W+n]
+		tot := 0.0
+		for j := 1; j < n; j++ {
+			tot += prevFwd[j] * terms[j]
+		}
+		j := pickProduct(prevFwd, terms, tot, rng)
+		logQNew += math.Log(terms[j])
+		t -= k
+		newB[t] = true
+		k = j
+	}
+	logQNew -= logZ
+
+	// The old segmentation: walk its words.
+	prevLen := 0
+	logQOld = g.oldLogQ(us, ue, K, func(t, k int) float64 {
+		x := 0.0
+		if uni[t*W+k] > 0 {
+			x = term[(t*W+k)*W+prevLen]
+		}
+		prevLen = k
+		return math.Log(x)
+	})
+	logQOld += math.Log(ends[prevLen])
+	return logQOld - logZ, logQNew, true
+}
+
+// bigramTermLinear is bigramTerm as a probability.
+func (g *BlockedSampler) bigramTermLinear(t, k, j, W int) float64 {
+	pu := g.uni[t*W+k]
+	prev := End
+	if j > 0 {
+		prev = g.ids[(t-k)*W+j]
+	}
+	if prev == -2 {
+		return pu // an unseen context has no customers: P = P_uni
+	}
+	return g.Model.bi.predictive(contextOf(prev), g.ids[t*W+k], pu)
+}
+
+// endTermLinear is endTerm as a probability, given P_uni(End).
+func (g *BlockedSampler) endTermLinear(L, k, W int, endUni float64) float64 {
+	if w := g.ids[L*W+k]; w != -2 {
+		return g.Model.bi.predictive(contextOf(w), End, endUni)
+	}
+	return endUni
+}
+
+// pickProduct draws j in [1, len(a)) with probability a[j]*b[j]/total.
+func pickProduct(a, b []float64, total float64, rng *rand.Rand) int {
+	u := rng.Float64() * total
+	last := 0
+	for j := 1; j < len(a); j++ {
+		x := a[j] * b[j]
+		if x == 0 {
+			continue
+		}
+		last = j
+		if u -= x; u < 0 {
+			return j
+		}
+	}
+	return last // rounding
 }

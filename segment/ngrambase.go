@@ -179,22 +179,6 @@ func (b *NgramBase) chain(k int, ctx int32) {
 	}
 }
 
-// predictive returns P(w | ctx) given P_parent(w): restaurants.logPredictive
-// without logarithms, for the unit model, whose probabilities are never
-// small enough to underflow.
-func (r *restaurants) predictive(ctx int32, w WordType, parent float64) float64 {
-	if int(ctx) >= len(r.customers) || r.customers[ctx] == 0 {
-		return parent
-	}
-	d, a := r.params.Discount, r.params.Concentration
-	c, t := float64(r.customers[ctx]), float64(r.tables[ctx])
-	p := (a + d*t) * parent
-	if ds := r.seating(ctx, w, false); ds != nil {
-		p += float64(ds.customers) - d*float64(ds.tables)
-	}
-	return p / (c + a)
-}
-
 // context returns the id of the level-k context of position i of a word
 // starting at start, interning it and its parents if new.
 func (b *NgramBase) context(c *Corpus, start, i, k int) int32 {

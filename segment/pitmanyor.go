@@ -132,6 +132,25 @@ func (r *restaurants) logPredictive(ctx int32, w WordType, logParent float64) fl
 	return lNew - math.Log(c+a)
 }
 
+// predictive returns P(w | ctx) given P_parent(w): logPredictive without
+// logarithms, for the unit model, whose probabilities are never small
+// enough to underflow, and for the blocked sampler's scaled lattices. w
+// may be -2, a word never interned.
+func (r *restaurants) predictive(ctx int32, w WordType, parent float64) float64 {
+	c, t := r.totals(ctx)
+	if c == 0 {
+		return parent
+	}
+	d, a := r.params.Discount, r.params.Concentration
+	p := (a + d*t) * parent
+	if w >= End {
+		if ds := r.seating(ctx, w, false); ds != nil {
+			p += float64(ds.customers) - d*float64(ds.tables)
+		}
+	}
+	return p / (c + a)
+}
+
 // add seats a customer of dish w in context ctx. It returns whether the
 // customer opened a new table (so the parent gets a customer too). The
 // choice is recorded in j.
