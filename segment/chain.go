@@ -106,6 +106,7 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 	var f UtteranceFactor
 	if cfg.Sampler == "blocked" {
 		bs := NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
+		bs.UnigramProposal = cfg.Proposal == "unigram"
 		if factor != nil {
 			f = factor(utteranceWords(seg, m))
 			bs.Factor, bs.Weight = f, cfg.TranslationWeight

@@ -33,6 +33,7 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
 			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time) or blocked (one utterance at a time, forward filtering and backward sampling)"},
+			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them (default: 4/5 of --iterations)"},
@@ -66,6 +67,7 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg.Base = ctx.String("base")
 	cfg.NgramOrder = ctx.Int("ngram-order")
 	cfg.Sampler = ctx.String("sampler")
+	cfg.Proposal = ctx.String("proposal")
 	cfg.MaxWordLength = ctx.Int("max-word-length")
 	cfg.Iterations = ctx.Int("iterations")
 	cfg.Burnin = cfg.Iterations * 4 / 5
@@ -107,7 +109,7 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "proposal", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
