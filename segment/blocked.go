@@ -51,7 +51,15 @@ type BlockedSampler struct {
 	ids  []WordType // type of span [t-k, t) or -2 if not interned, [t][k]
 	cum  []float64
 	cum2 []float64
-	newB []bool
+	// Probability-space lattices (blockedlinear.go): the unigram-level
+	// new-table probability by word length and its power 1/T; per span,
+	// the unigram-level probability to the power 1/T and the new-table
+	// weight to the power 1/T of the context it makes; the latter for the
+	// utterance start.
+	p0, p0inv      []float64
+	uniInv, newInv []float64
+	startInv       float64
+	newB           []bool
 }
 
 // NewBlockedSampler seats s in m and returns a blocked sampler over both.
@@ -275,6 +283,8 @@ func (g *BlockedSampler) growScratch(L, K int) []bool {
 	if g.Model.Order == 2 {
 		g.term = grow(g.term, n*(K+1))
 		g.uni = grow(g.uni, n)
+		g.uniInv = grow(g.uniInv, n)
+		g.newInv = grow(g.newInv, n)
 	}
 	if cap(g.ids) < n {
 		g.ids = make([]WordType, n, 2*n)

@@ -28,7 +28,7 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 	h := m.Rho / 2
 	N := float64(m.tokens)
 	cont := (N - float64(m.utterances-1) + h) / (N + m.Rho)
-	up := g.newUniLinear(ub, K)
+	up := g.newUniLinear(ub, K, cont, inv)
 
 	term := g.term
 	invc := g.fwd // invc[t] = 1/c_t
@@ -43,11 +43,7 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 					ratio *= invc[t-k+1]
 				}
 				if spanOK(c, us, ue, us+t-k, us+t) {
-					_, x = up.prob(m, us+t-k, us+t)
-					x *= cont
-					if inv != 1 {
-						x = math.Exp(inv * math.Log(x))
-					}
+					_, _, x = up.prob(m, us+t-k, us+t)
 					raw += x * ratio
 				}
 			}
@@ -99,48 +95,58 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 }
 
 // uniLinear computes unigram-level predictive probabilities of spans for
-// a model with a UniformBase.
+// a model with a UniformBase, times a word-independent factor, and their
+// powers 1/T. A span never seated costs no power: its probability depends
+// on its length only, so those powers are computed once per length.
 type uniLinear struct {
-	p0            []float64 // p0[k]: the base's share times P0 of a word of k units
+	p0, p0inv     []float64 // by length k: the new-table probability, and its power
 	d, newW, norm float64
+	scale, inv    float64
 	r             *restaurants
 }
 
-// newUniLinear prepares uniLinear for words of up to K units, in g.cum.
-func (g *BlockedSampler) newUniLinear(ub UniformBase, K int) uniLinear {
+// newUniLinear prepares uniLinear for words of up to K units, with every
+// probability multiplied by scale and powers taken to inv.
+func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64) uniLinear {
 	m := g.Model
 	share := 1.0
 	if m.Order == 2 {
 		share = 1 - m.EndBase
 	}
-	u := uniLinear{p0: g.cum[:K+1], r: m.uni}
+	if cap(g.p0) < K+1 {
+		g.p0, g.p0inv = make([]float64, K+1, 2*(K+1)), make([]float64, K+1, 2*(K+1))
+	}
+	u := uniLinear{p0: g.p0[:K+1], p0inv: g.p0inv[:K+1], r: m.uni, scale: scale, inv: inv}
+	tot, tables := m.uni.totals(0)
+	u.d = m.uni.params.Discount
+	u.norm = scale / (tot + m.uni.params.Concentration)
+	u.newW = m.uni.params.Concentration + u.d*tables
+	if tot == 0 {
+		u.norm, u.newW = scale, 1
+	}
 	q := (1 - ub.WordEnd) / float64(ub.Units)
 	v := share * ub.WordEnd / float64(ub.Units)
 	for k := 1; k <= K; k++ {
-		u.p0[k] = v
+		u.p0[k] = u.newW * v
+		u.p0inv[k] = powInv(u.p0[k]*u.norm, inv)
 		v *= q
-	}
-	tot, tables := m.uni.totals(0)
-	u.d = m.uni.params.Discount
-	u.norm = 1 / (tot + m.uni.params.Concentration)
-	u.newW = m.uni.params.Concentration + u.d*tables
-	if tot == 0 {
-		u.norm, u.newW = 1, 1
 	}
 	return u
 }
 
-// prob returns the type of span [a, b) (-2 if not interned) and its
-// unigram-level predictive probability.
-func (u *uniLinear) prob(m *Words, a, b int) (WordType, float64) {
-	x := u.newW * u.p0[b-a]
-	w := m.lookupSpan(a, b)
+// prob returns the type of span [a, b) (-2 if not interned), its
+// unigram-level predictive probability times the scale, and that to the
+// power inv.
+func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64) {
+	k := b - a
+	w = m.lookupSpan(a, b)
 	if w >= 0 {
 		if ds := u.r.seating(0, w, false); ds != nil && ds.customers > 0 {
-			x += float64(ds.customers) - u.d*float64(ds.tables)
+			x = (u.p0[k] + float64(ds.customers) - u.d*float64(ds.tables)) * u.norm
+			return w, x, powInv(x, u.inv)
 		}
 	}
-	return w, x * u.norm
+	return w, u.p0[k] * u.norm, u.p0inv[k]
 }
 
 // powInv returns x^inv, skipping the work at temperature 1.
@@ -162,16 +168,20 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 	c := m.Corpus
 	L := ue - us
 	W := K + 1
-	up := g.newUniLinear(ub, K)
+	up := g.newUniLinear(ub, K, 1, inv)
 	ids, uni, term, fwd := g.ids, g.uni, g.term, g.fwd
+	uniInv, newInv := g.uniInv, g.newInv
 	for t := 1; t <= L; t++ {
 		for k := 1; k < W; k++ {
-			ids[t*W+k], uni[t*W+k] = -2, 0
+			idx := t*W + k
+			ids[idx], uni[idx], uniInv[idx], newInv[idx] = -2, 0, 0, 1
 			if k <= t && spanOK(c, us, ue, us+t-k, us+t) {
-				ids[t*W+k], uni[t*W+k] = up.prob(m, us+t-k, us+t)
+				ids[idx], uni[idx], uniInv[idx] = up.prob(m, us+t-k, us+t)
+				newInv[idx] = g.newTableInv(ids[idx], inv)
 			}
 		}
 	}
+	g.startInv = g.newTableInv(End, inv)
 	invc := g.cum2[:0]
 	invc = append(invc, 1)
 	logZ := 0.0
@@ -185,7 +195,7 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 			raw := 0.0
 			if k <= t && uni[idx] > 0 {
 				if k == t {
-					x := powInv(g.bigramTermLinear(t, k, 0, W), inv)
+					x := g.bigramTermLinear(t, k, 0, W, inv)
 					term[idx*W] = x
 					raw = x
 				} else {
@@ -193,7 +203,7 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 					for j := 1; j < W; j++ {
 						x := 0.0
 						if j <= t-k && fwd[(t-k)*W+j] > 0 {
-							x = powInv(g.bigramTermLinear(t, k, j, W), inv)
+							x = g.bigramTermLinear(t, k, j, W, inv)
 							raw += fwd[(t-k)*W+j] * x
 						}
 						term[idx*W+j] = x
@@ -268,17 +278,43 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 	return logQOld - logZ, logQNew, true
 }
 
-// bigramTermLinear is bigramTerm as a probability.
-func (g *BlockedSampler) bigramTermLinear(t, k, j, W int) float64 {
-	pu := g.uni[t*W+k]
-	prev := End
+// bigramTermLinear is bigramTerm as a probability, raised to inv. Only a
+// word already seated after its context needs a power of its own; any
+// other's probability is the context's new-table weight times the
+// unigram-level probability, whose powers are cached per context and per
+// span.
+func (g *BlockedSampler) bigramTermLinear(t, k, j, W int, inv float64) float64 {
+	idx := t*W + k
+	prev, ctxInv := End, g.startInv
 	if j > 0 {
-		prev = g.ids[(t-k)*W+j]
+		prev, ctxInv = g.ids[(t-k)*W+j], g.newInv[(t-k)*W+j]
 	}
+	if prev != -2 {
+		if w := g.ids[idx]; w >= 0 {
+			r := g.Model.bi
+			ctx := contextOf(prev)
+			if ds := r.seating(ctx, w, false); ds != nil && ds.customers > 0 {
+				return powInv(r.predictive(ctx, w, g.uni[idx]), inv)
+			}
+		}
+	}
+	return ctxInv * g.uniInv[idx]
+}
+
+// newTableInv returns ((a + d T_ctx) / (C_ctx + a))^inv for the context of
+// word prev, the bigram level's weight on its parent there: 1 for a
+// context without customers, or a word never interned (-2).
+func (g *BlockedSampler) newTableInv(prev WordType, inv float64) float64 {
 	if prev == -2 {
-		return pu // an unseen context has no customers: P = P_uni
+		return 1
 	}
-	return g.Model.bi.predictive(contextOf(prev), g.ids[t*W+k], pu)
+	r := g.Model.bi
+	c, tt := r.totals(contextOf(prev))
+	if c == 0 {
+		return 1
+	}
+	d, a := r.params.Discount, r.params.Concentration
+	return powInv((a+d*tt)/(c+a), inv)
 }
 
 // endTermLinear is endTerm as a probability, given P_uni(End).
