@@ -104,7 +104,7 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 	m := newModel(c, cfg, st.Hyper)
 	var g sampler
 	var f UtteranceFactor
-	if cfg.Sampler == "blocked" {
+	if cfg.SamplerFor(c) == "blocked" {
 		bs := NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
 		bs.UnigramProposal = cfg.Proposal == "unigram"
 		if factor != nil {

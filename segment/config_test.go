@@ -47,3 +47,30 @@ func TestConfigValidate(t *testing.T) {
 		}
 	}
 }
+
+// TestSamplerFor checks the "auto" choice on corpora of short and long
+// utterances.
+func TestSamplerFor(t *testing.T) {
+	short := tinyCorpus(t, "abcab", "abcabcabcab")                // mean 8 units
+	long := tinyCorpus(t, strings.Repeat("ab", 7), "abcabcabcab") // mean 12.5 units
+	cases := []struct {
+		sampler, model string
+		c              *Corpus
+		want           string
+	}{
+		{"auto", "unigram", short, "blocked"},
+		{"auto", "unigram", long, "blocked"},
+		{"auto", "bigram", short, "blocked"},
+		{"auto", "bigram", long, "boundary"},
+		{"boundary", "unigram", short, "boundary"},
+		{"blocked", "bigram", long, "blocked"},
+	}
+	for _, tc := range cases {
+		cfg := DefaultConfig()
+		cfg.Sampler, cfg.Model = tc.sampler, tc.model
+		if got := cfg.SamplerFor(tc.c); got != tc.want {
+			t.Errorf("%s sampler, %s model, %d units in %d utterances: got %s, want %s",
+				tc.sampler, tc.model, len(tc.c.Units), tc.c.Len(), got, tc.want)
+		}
+	}
+}

@@ -32,7 +32,7 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, or bigram (hierarchical: each word's successors back off to the unigram)"},
 			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
 			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
-			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time) or blocked (one utterance at a time, forward filtering and backward sampling)"},
+			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time), blocked (one utterance at a time, forward filtering and backward sampling), or auto: blocked, except boundary for the bigram model when utterances average more than 12 units (long utterances make bigram lattices expensive)"},
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},

@@ -135,7 +135,9 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&langs, "langs", "spa,tur,ind,swh,fin", "languages, comma-separated")
 	fs.StringVar(&seeds, "seeds", "1,2,3", "seeds, comma-separated; every setting runs with each")
 	fs.StringVar(&models, "model", d.Model, "word models, comma-separated (unigram, bigram)")
-	fs.StringVar(&samplers, "sampler", d.Sampler, "samplers, comma-separated (boundary, blocked)")
+	// The committed results were made with the boundary sampler, which
+	// learn's "auto" also picks for the bigram model on these paragraphs.
+	fs.StringVar(&samplers, "sampler", "boundary", "samplers, comma-separated (boundary, blocked, auto)")
 	fs.StringVar(&weights, "weights", "0,1", "translation weights, comma-separated; 0 is the run without the prior and is always included")
 	fs.StringVar(&minCounts, "min-count", strconv.Itoa(d.TranslationMinCount), "translation min-counts, comma-separated")
 	fs.IntVar(&o.iterations, "iterations", 300, "sweeps per chain")
