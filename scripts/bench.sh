@@ -21,27 +21,32 @@
 #   OUT=DIR            results (default: tmp/bench in the checkout, ignored by git)
 #   CONFIGS=...        table configurations (default: every model x sampler,
 #                      unigram/boundary,unigram/blocked,bigram/boundary,bigram/blocked)
-#   ITERATIONS=1000    sweeps per table run (the default of `juncture learn`)
+#   ITERATIONS=200     sweeps per table run (the default of `juncture learn`)
 #   SEEDS=1,2,3        seeds per table configuration
 #   LINES=0            first N utterances of each corpus in the table (0: all)
 #   CORPORA=all        table corpora (cds-english, udhr/fin, ...)
 #   SCALES=1,4,16  SCALE_LINES=2000  SCALE_ITERATIONS=50
+#   SCALE_START=random (or gold: chains start from the reference segmentation
+#                      at temperature 1, the cost per sweep near the posterior;
+#                      a random start's lexicon grows with the copies)
 #   SCALE_CORPORA      (default: cds-english when present, else udhr/spa)
 #   MIX_LINES=2000  MIX_SWEEPS=300  MIX_CORPUS (default like SCALE_CORPORA)
 #   COUNT=6            go test -count (benchstat wants at least 6 per side)
 #   BENCHTIME          go test -benchtime (default: go test's own, 1s)
 #
-# Expected run time on an idle 2-core machine, extrapolated from the sweep
-# benchmarks on the whole English corpus (about 1.1, 1.7, 2.5 and 7.9
+# Expected run time on an idle 2-core machine, from the sweep benchmarks on
+# the whole English corpus at temperature 1 (about 0.75, 0.27, 1.9 and 1.3
 # microseconds per unit per sweep for unigram/boundary, unigram/blocked,
-# bigram/boundary and bigram/blocked) and from short runs on UDHR, whose
-# paragraph-long utterances make the blocked bigram sampler dearer (about
-# 30 microseconds per unit per sweep):
-#   table   about 5 hours: English about 3.3 h (294,000 units x 1000 sweeps
-#           x 3 seeds, about 3.9 s per sweep of all four configurations),
-#           UDHR about 1.5 h. SEEDS=1 takes a third of that, ITERATIONS=200
-#           a fifth.
-#   scale   about 5 minutes;  mix  about 2 minutes;  gotest  about 3 minutes.
+# bigram/boundary and bigram/blocked; annealed sweeps from a random start
+# cost 2-4 times more) and from short runs on UDHR, whose paragraph-long
+# utterances make the blocked bigram sampler dearer:
+#   table   about 1.5 hours: English about 1 h (294,000 units x 200 sweeps
+#           x 3 seeds x four configurations), UDHR about 0.5 h. SEEDS=1
+#           takes a third of that.
+#   scale   about 5 minutes at the defaults (2,000 lines, 50 sweeps); the
+#           whole English corpus (SCALE_LINES=0 SCALE_ITERATIONS=10) about
+#           25 minutes, most of it the bigram samplers at 16x.
+#   mix     about 2 minutes;  gotest  about 3 minutes.
 # Runs are sequential, one process at a time, so that times and memory are
 # not disturbed by one another; other load on the machine disturbs them.
 #
@@ -54,13 +59,14 @@ cd "$root"
 
 OUT=${OUT:-$root/tmp/bench}
 CONFIGS=${CONFIGS:-unigram/boundary,unigram/blocked,bigram/boundary,bigram/blocked}
-ITERATIONS=${ITERATIONS:-1000}
+ITERATIONS=${ITERATIONS:-200}
 SEEDS=${SEEDS:-1,2,3}
 LINES=${LINES:-0}
 CORPORA=${CORPORA:-all}
 SCALES=${SCALES:-1,4,16}
 SCALE_LINES=${SCALE_LINES:-2000}
 SCALE_ITERATIONS=${SCALE_ITERATIONS:-50}
+SCALE_START=${SCALE_START:-random}
 MIX_LINES=${MIX_LINES:-2000}
 MIX_SWEEPS=${MIX_SWEEPS:-300}
 COUNT=${COUNT:-6}
@@ -114,7 +120,7 @@ for s in "${stages[@]}"; do
 		;;
 	scale)
 		"$bin/benchtable" -scale "$SCALES" -configs "$CONFIGS" -iterations "$SCALE_ITERATIONS" \
-			-seeds 1 -lines "$SCALE_LINES" -corpora "$SCALE_CORPORA" -out "$OUT/scale.txt" 2>&1 | tee "$OUT/scale.log"
+			-start "$SCALE_START" -seeds 1 -lines "$SCALE_LINES" -corpora "$SCALE_CORPORA" -out "$OUT/scale.txt" 2>&1 | tee "$OUT/scale.log"
 		cat "$OUT/scale.txt"
 		;;
 	mix)

@@ -28,7 +28,9 @@ type job struct {
 	Lines int `json:"lines"`
 	// Scale is how many shuffled copies of those utterances to learn
 	// from, in scale mode.
-	Scale  int            `json:"scale"`
+	Scale int `json:"scale"`
+	// Start is "random" or "gold": the first segmentation of each chain.
+	Start  string         `json:"start,omitempty"`
 	Config segment.Config `json:"config"`
 }
 
@@ -92,7 +94,22 @@ func (j job) run() (*result, error) {
 		ticks++
 	}
 	start := time.Now()
-	learned, err := segment.Run(context.Background(), c, j.Config, nil, segment.RunOptions{Progress: progress})
+	var states []*segment.ChainState
+	if j.Start == "gold" {
+		gold, err := evalcorpus.GoldBoundaries(j.Source.Name, utts)
+		if err != nil {
+			return nil, err
+		}
+		if len(gold) != len(c.Units) {
+			return nil, fmt.Errorf("%s: the reference has %d units, the input %d", j.Source.Name, len(gold), len(c.Units))
+		}
+		for i := range j.Config.Chains {
+			st := segment.InitialState(c, j.Config, i)
+			copy(st.Boundary, gold)
+			states = append(states, st)
+		}
+	}
+	learned, err := segment.Run(context.Background(), c, j.Config, states, segment.RunOptions{Progress: progress})
 	if err != nil {
 		return nil, err
 	}

@@ -87,6 +87,7 @@ type options struct {
 	corpora    string
 	lines      int
 	scales     []int
+	start      string
 	format     string
 	out        string
 	root       string
@@ -108,6 +109,7 @@ func parseFlags(args []string, stderr io.Writer) (*options, error) {
 	seeds := fs.String("seeds", "1", "comma-separated random `SEEDS`; the table gives mean±sd over them")
 	corpora := fs.String("corpora", "all", "comma-separated corpus `NAMES` (cds-english, udhr/fin, ...) or all")
 	lines := fs.Int("lines", 0, "use the first `N` utterances of each corpus (0: all)")
+	start := fs.String("start", "random", "first segmentation of each chain: random, or gold (the reference, sampled at temperature 1 without burn-in: the cost per sweep near the posterior, where the lexicon does not grow with copies of the corpus as a random segmentation's does)")
 	scales := fs.String("scale", "", "measure cost against corpus size at these comma-separated multiples (e.g. 1,4,16) instead of accuracy")
 	jsonOut := fs.Bool("json", false, "print JSON instead of a table")
 	tsvOut := fs.Bool("tsv", false, "print tab-separated values with a header instead of a table")
@@ -133,6 +135,14 @@ func parseFlags(args []string, stderr io.Writer) (*options, error) {
 	case *tsvOut:
 		o.format = "tsv"
 	}
+	switch *start {
+	case "random":
+	case "gold":
+		*burnin = 0
+	default:
+		return nil, fmt.Errorf("-start: want random or gold, got %q", *start)
+	}
+	o.start = *start
 	if o.burnin < 0 {
 		o.burnin = o.iterations * 4 / 5
 	}
@@ -250,7 +260,7 @@ func run(args []string, stdout, stderr io.Writer) error {
 		for _, rc := range o.configs {
 			for _, k := range scales {
 				for _, seed := range o.seeds {
-					j := job{Mode: mode, Source: src, Lines: o.lines, Scale: k, Config: o.config(rc, seed)}
+					j := job{Mode: mode, Source: src, Lines: o.lines, Scale: k, Start: o.start, Config: o.config(rc, seed)}
 					res, err := runChild(self, j, stderr)
 					if err != nil {
 						return fmt.Errorf("%s %s scale %d seed %d: %w", src.Name, rc, k, seed, err)

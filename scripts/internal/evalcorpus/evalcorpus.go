@@ -191,6 +191,25 @@ func Corpus(name string, utts []Utterance) (*segment.Corpus, error) {
 	return c, nil
 }
 
+// GoldBoundaries returns the reference segmentation of the corpus that
+// Corpus builds from utts, as a boundary before each unit (true at
+// utterance starts).
+func GoldBoundaries(name string, utts []Utterance) ([]bool, error) {
+	var buf bytes.Buffer
+	for _, u := range utts {
+		buf.WriteString(strings.Join(u.Ref, " "))
+		buf.WriteByte('\n')
+	}
+	c, err := segment.ReadCorpus(&buf, name, segment.ReadOptions{SpacesAreBoundaries: true})
+	if err != nil {
+		return nil, err
+	}
+	if c.Len() != len(utts) {
+		return nil, fmt.Errorf("%s: %d reference utterances read back from %d", name, c.Len(), len(utts))
+	}
+	return segment.NewSegmentation(c).Boundary, nil
+}
+
 // Score compares the segmentation seg of the corpus built from utts with
 // their reference words.
 func Score(seg *segment.Segmentation, utts []Utterance) (score.Scores, error) {

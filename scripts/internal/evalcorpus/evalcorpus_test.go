@@ -203,3 +203,15 @@ func TestCorpusAndScore(t *testing.T) {
 		t.Error("no error for a length mismatch")
 	}
 }
+
+func TestGoldBoundaries(t *testing.T) {
+	utts := []Utterance{{"abcd", []string{"ab", "cd"}}, {"efg", []string{"efg"}}, {"hij", []string{"h", "i", "j"}}}
+	got, err := GoldBoundaries("t", utts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []bool{true, false, true, false, true, false, false, true, true, true}
+	if !slices.Equal(got, want) {
+		t.Errorf("got %v, want %v", got, want)
+	}
+}
