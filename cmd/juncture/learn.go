@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 
+	"github.com/juncture-project/juncture/lexicon"
 	"github.com/juncture-project/juncture/segment"
 	"github.com/juncture-project/juncture/segment/atomicfile"
 	"github.com/juncture-project/juncture/segment/state"
@@ -48,6 +49,7 @@ func learnCommand() *cli.Command {
 			&cli.Float64Flag{Name: "word-end", Usage: "fix the base distribution's word-end probability p# (sampled otherwise; starts at 0.5)"},
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the segmentation to `FILE` (atomically) instead of standard output"},
 			&cli.StringFlag{Name: "posteriors", Usage: "write every gap's boundary probability to `FILE` as TSV (line, offset, probability...)"},
+			&cli.StringFlag{Name: "lexicon", Usage: "write the lexicon of the segmentation to `FILE` (TSV: form, count, confidence, glosses from --translations, example lines)"},
 			&cli.StringFlag{Name: "state", Usage: "keep the run's settings, corpus, checkpoints and results in `DIR`"},
 			&cli.BoolFlag{Name: "resume", Usage: "continue the run in --state DIR from its last checkpoint (INPUT and model flags are taken from DIR)"},
 			&cli.IntFlag{Name: "block", Value: d.Block, Usage: "sweeps between checkpoints (each chain's model is rebuilt from its sample at every block)"},
@@ -169,6 +171,15 @@ func runLearn(ctx *cli.Context) error {
 	}
 	if p := ctx.String("posteriors"); p != "" {
 		if err := atomicfile.Write(p, func(w io.Writer) error { return state.WritePosteriors(w, c, res.Posterior) }); err != nil {
+			return err
+		}
+	}
+	if p := ctx.String("lexicon"); p != "" {
+		lex := lexicon.Build(res.Decoded, res.Posterior)
+		if tokens != nil {
+			lexicon.AddGlosses(lex, res.Decoded, tokens, lexicon.DefaultGlossOptions())
+		}
+		if err := atomicfile.Write(p, func(w io.Writer) error { return lexicon.WriteTSV(w, lex) }); err != nil {
 			return err
 		}
 	}

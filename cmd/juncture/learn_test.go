@@ -6,6 +6,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"syscall"
 	"testing"
@@ -92,5 +93,53 @@ func TestLearnResumeAfterKill(t *testing.T) {
 				t.Errorf("killed after %v: %s differs after resume", delay, f)
 			}
 		}
+	}
+}
+
+// TestLearnLexicon: --lexicon writes one row per word type of the output,
+// counts summing to its tokens, and glosses from --translations for words
+// that always come with the same translation word.
+func TestLearnLexicon(t *testing.T) {
+	dir := t.TempDir()
+	in, tr := filepath.Join(dir, "in.txt"), filepath.Join(dir, "tr.txt")
+	var src, eng strings.Builder
+	words := map[string]string{"kitu": "stone", "lesa": "water", "mo": "big", "ropa": "hand"}
+	forms := []string{"kitu", "lesa", "mo", "ropa"}
+	rng := rand.New(rand.NewPCG(3, 3))
+	for i := 0; i < 120; i++ {
+		a, b := forms[rng.IntN(4)], forms[rng.IntN(4)]
+		src.WriteString(a + b + "\n")
+		eng.WriteString("the " + words[a] + " and " + words[b] + "\n")
+	}
+	os.WriteFile(in, []byte(src.String()), 0o644)
+	os.WriteFile(tr, []byte(eng.String()), 0o644)
+	lex := filepath.Join(dir, "lex.tsv")
+	out := run(t, nil, "learn", "-q", "--iterations", "40", "--translations", tr, "--lexicon", lex, in)
+	rows := strings.Split(strings.TrimSpace(string(mustRead(t, lex))), "\n")
+	if rows[0] != "form\tcount\tconfidence\tglosses\tlines" {
+		t.Fatalf("header %q", rows[0])
+	}
+	tokens, total := map[string]int{}, 0
+	for _, w := range strings.Fields(string(out)) {
+		tokens[w]++
+		total++
+	}
+	sum := 0
+	for _, r := range rows[1:] {
+		f := strings.Split(r, "\t")
+		if len(f) != 5 {
+			t.Fatalf("row %q has %d fields", r, len(f))
+		}
+		n, _ := strconv.Atoi(f[1])
+		if n != tokens[f[0]] {
+			t.Errorf("%s: count %d in the lexicon, %d in the output", f[0], n, tokens[f[0]])
+		}
+		sum += n
+		if g, ok := words[f[0]]; ok && !strings.HasPrefix(f[3], g+" (") {
+			t.Errorf("%s: glosses %q, want %s first", f[0], f[3], g)
+		}
+	}
+	if sum != total || len(rows)-1 != len(tokens) {
+		t.Errorf("lexicon has %d rows and %d tokens; the output %d types and %d tokens", len(rows)-1, sum, len(tokens), total)
 	}
 }

@@ -145,8 +145,8 @@ func readTSV(r io.Reader, name string, opts segment.ReadOptions, stop map[string
 // The table is re-estimated by 10 EM iterations from the segmentation at
 // the start of every block, with smoothing beta = 1.
 func translationFactor(tokens [][]string, cfg segment.Config) segment.FactorBuilder {
-	if tokens == nil {
-		return nil
+	if tokens == nil || cfg.TranslationWeight == 0 {
+		return nil // glosses only: the factor would multiply by 1
 	}
 	return func(words [][]int32) segment.UtteranceFactor {
 		return align.NewFactor(tokens, 1, words, 10, cfg.TranslationMinCount)
