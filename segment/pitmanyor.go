@@ -233,6 +233,7 @@ func (r *restaurants) predictiveAt(ctx int32, ds *dishSeating, parent float64) f
 
 // seatAt adds a customer to a table of the given size (0: a new table).
 func (r *restaurants) seatAt(ctx int32, ds *dishSeating, size int32) {
+	r.roomFor(ds)
 	ds.addToSize(size)
 	r.changes++
 	r.customers[ctx]++
@@ -241,8 +242,28 @@ func (r *restaurants) seatAt(ctx int32, ds *dishSeating, size int32) {
 	}
 }
 
+// roomFor makes sure ds's histogram can take one more table size without
+// append reallocating it: a full one moves to twice the room, carved from
+// the slab. Moving a customer between sizes adds at most one entry, so
+// sweeps allocate only when a slab runs out (every few thousand moves of
+// a histogram to more room), not every time a dish meets a new size.
+func (r *restaurants) roomFor(ds *dishSeating) {
+	if len(ds.hist) < cap(ds.hist) {
+		return
+	}
+	n := max(2, 2*cap(ds.hist))
+	if len(r.slab) < n {
+		r.slab = make([]sizeCount, max(4096, n))
+	}
+	h := r.slab[:len(ds.hist):n]
+	r.slab = r.slab[n:]
+	copy(h, ds.hist)
+	ds.hist = h
+}
+
 // unseatAt removes a customer from a table of the given size.
 func (r *restaurants) unseatAt(ctx int32, ds *dishSeating, size int32) {
+	r.roomFor(ds)
 	ds.removeFromSize(size)
 	r.changes++
 	r.customers[ctx]--
