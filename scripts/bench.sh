@@ -46,7 +46,8 @@
 #   scale   about 5 minutes at the defaults (2,000 lines, 50 sweeps); the
 #           whole English corpus (SCALE_LINES=0 SCALE_ITERATIONS=10) about
 #           25 minutes, most of it the bigram samplers at 16x.
-#   mix     about 2 minutes;  gotest  about 3 minutes.
+#   mix     about 2 minutes;  gotest  about 20 minutes (BenchmarkScale builds
+#           16 copies of the English corpus for each of its 16x cases).
 # Runs are sequential, one process at a time, so that times and memory are
 # not disturbed by one another; other load on the machine disturbs them.
 #

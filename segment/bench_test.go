@@ -1,8 +1,10 @@
 package segment_test
 
 import (
+	"fmt"
 	"math/rand/v2"
 	"os"
+	"strings"
 	"testing"
 
 	. "github.com/juncture-project/juncture/segment"
@@ -38,12 +40,21 @@ func benchmarkSweep(b *testing.B, order int, d float64) {
 	for i := 0; i < 3; i++ {
 		g.Sweep(1, rng)
 	}
+	timeSweeps(b, g, rng, len(c.Units))
+}
+
+// sweeper is what the benchmarks time.
+type sweeper interface{ Sweep(float64, *rand.Rand) }
+
+// timeSweeps times b.N sweeps of g at temperature 1 over a corpus of
+// units units, reporting allocations and nanoseconds per unit per sweep.
+func timeSweeps(b *testing.B, g sweeper, rng *rand.Rand, units int) {
 	b.ReportAllocs()
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
 		g.Sweep(1, rng)
 	}
-	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(c.Units)), "ns/unit")
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(units), "ns/unit")
 }
 
 func BenchmarkSweepUnigram(b *testing.B)  { benchmarkSweep(b, 1, 0) }
@@ -60,15 +71,59 @@ func benchmarkBlocked(b *testing.B, order, maxLen int, uniProp bool) {
 	for i := 0; i < 2; i++ {
 		g.Sweep(1, rng)
 	}
-	b.ReportAllocs()
-	b.ResetTimer()
-	for i := 0; i < b.N; i++ {
-		g.Sweep(1, rng)
-	}
-	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(c.Units)), "ns/unit")
+	timeSweeps(b, g, rng, len(c.Units))
 	b.ReportMetric(g.AcceptanceRate(), "accept")
 }
 
 func BenchmarkBlockedUnigram(b *testing.B)           { benchmarkBlocked(b, 1, 16, false) }
 func BenchmarkBlockedBigram(b *testing.B)            { benchmarkBlocked(b, 2, 16, false) }
 func BenchmarkBlockedBigramUniProposal(b *testing.B) { benchmarkBlocked(b, 2, 16, true) }
+
+// BenchmarkScale measures one sweep at temperature 1 over k shuffled
+// copies of the English corpus (when present), starting from its reference
+// segmentation, for every model and sampler: ns/unit should not grow with
+// k (linear cost). Starting near the posterior matters: from a random
+// segmentation every copy is cut differently, so the lexicon and the
+// restaurants grow with k and larger corpora look dearer per unit.
+func BenchmarkScale(b *testing.B) {
+	data, err := os.ReadFile("../../shared/corpora/cds-english/gold.txt")
+	if err != nil {
+		b.Skip("no English corpus")
+	}
+	lines := strings.Split(strings.TrimSpace(string(data)), "\n")
+	for _, k := range []int{1, 16} {
+		for _, order := range []int{1, 2} {
+			for _, blocked := range []bool{false, true} {
+				name := fmt.Sprintf("x%d/order%d/boundary", k, order)
+				if blocked {
+					name = fmt.Sprintf("x%d/order%d/blocked", k, order)
+				}
+				b.Run(name, func(b *testing.B) {
+					rng := rand.New(rand.NewPCG(1, 2))
+					var all []string
+					for range k {
+						all = append(all, lines...)
+					}
+					rng.Shuffle(len(all), func(i, j int) { all[i], all[j] = all[j], all[i] })
+					c, err := ReadCorpus(strings.NewReader(strings.Join(all, "\n")), "x", ReadOptions{SpacesAreBoundaries: true})
+					if err != nil {
+						b.Fatal(err)
+					}
+					seg := NewSegmentation(c) // the reference: spaces locked as boundaries
+					c.Locks = nil             // then every gap free
+					c.IndexSpans(24)
+					// Hyperparameters near those sampled given the reference.
+					m := NewWords(c, order, PitmanYor{0, 2500}, PitmanYor{0, 60}, UniformBase{WordEnd: 0.22, Units: len(c.Inventory)})
+					var g sweeper
+					if blocked {
+						g = NewBlockedSampler(seg, m, 24, rng)
+					} else {
+						g = NewWordsGibbs(seg, m, rng)
+					}
+					g.Sweep(1, rng)
+					timeSweeps(b, g, rng, len(c.Units))
+				})
+			}
+		}
+	}
+}
