@@ -36,7 +36,7 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time), blocked (one utterance at a time, forward filtering and backward sampling), or auto: blocked, except boundary for the bigram model when utterances average more than 12 units (long utterances make bigram lattices expensive)"},
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
-			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "Gibbs sweeps over the corpus per chain"},
+			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them (default: 4/5 of --iterations)"},
 			&cli.Float64Flag{Name: "converge", Usage: "stop sampling before --iterations once the chains agree: split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other"},
 			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
