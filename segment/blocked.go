@@ -59,6 +59,7 @@ type BlockedSampler struct {
 	p0, p0inv      []float64
 	uniInv, newInv []float64
 	startInv       float64
+	invc           []float64 // bigram: 1/c_t, the scale factors by position
 	newB           []bool
 }
 
@@ -285,6 +286,7 @@ func (g *BlockedSampler) growScratch(L, K int) []bool {
 		g.uni = grow(g.uni, n)
 		g.uniInv = grow(g.uniInv, n)
 		g.newInv = grow(g.newInv, n)
+		g.invc = grow(g.invc, L+1)
 	}
 	if cap(g.ids) < n {
 		g.ids = make([]WordType, n, 2*n)

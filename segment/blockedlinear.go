@@ -182,8 +182,8 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 		}
 	}
 	g.startInv = g.newTableInv(End, inv)
-	invc := g.cum2[:0]
-	invc = append(invc, 1)
+	invc := g.invc[:1] // invc[t] = 1/c_t
+	invc[0] = 1
 	logZ := 0.0
 	for t := 1; t <= L; t++ {
 		sum, ratio := 0.0, 1.0
@@ -220,10 +220,9 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 		for k := 1; k < W; k++ {
 			fwd[t*W+k] /= sum
 		}
-		invc = append(invc, 1/sum)
+		invc = append(invc, 1/sum) // within capacity: growScratch sized it
 		logZ += math.Log(sum)
 	}
-	g.cum2 = invc
 
 	// The End word after the last word of length k.
 	ends := g.cum[:W]
