@@ -41,16 +41,15 @@ Run it with Debian's /usr/bin/python3 through scripts/align-fixture.sh:
 import itertools
 import json
 import math
-import os
 import platform
 import random
-import subprocess
 import sys
-import tempfile
 
 import nltk
 from nltk.translate import AlignedSent, IBMModel1
 from nltk.translate.ibm_model import AlignmentInfo, IBMModel
+
+from fixture_common import package_version, write_atomic
 
 SEED = 20250214
 
@@ -182,11 +181,6 @@ def corpus(name, pairs, iterations):
     }
 
 
-def package_version(name):
-    out = subprocess.run(["dpkg-query", "-W", "-f=${Version}", name],
-                         capture_output=True, text=True, check=True)
-    return out.stdout
-
 
 def dump(fixture):
     """Return fixture as JSON text with one pair or table row per line."""
@@ -233,17 +227,7 @@ def main():
         "seed": SEED,
         "corpora": corpora,
     }
-    # Write atomically: a temporary file in the same directory, then rename.
-    directory = os.path.dirname(os.path.abspath(out))
-    fd, tmp = tempfile.mkstemp(prefix=".ibm1_nltk-", suffix=".json", dir=directory)
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as f:
-            f.write(dump(fixture))
-        os.chmod(tmp, 0o644)
-        os.replace(tmp, out)
-    except BaseException:
-        os.unlink(tmp)
-        raise
+    write_atomic(out, dump(fixture), prefix=".ibm1_nltk-")
     print("wrote %d corpora to %s" % (len(corpora), out))
 
 

@@ -30,12 +30,9 @@ Run it with Debian's /usr/bin/python3 through scripts/score-fixture.sh:
 """
 
 import json
-import os
 import platform
 import random
-import subprocess
 import sys
-import tempfile
 
 import nltk
 import numpy
@@ -43,6 +40,8 @@ import sklearn
 from nltk.metrics import scores as nltk_scores
 from nltk.metrics import segmentation as nltk_segmentation
 from sklearn.metrics import precision_recall_fscore_support
+
+from fixture_common import package_version, write_atomic
 
 SEED = 20240607
 RANDOM_CASES = 220
@@ -233,11 +232,6 @@ def random_cases(rng):
     return cases
 
 
-def package_version(name):
-    out = subprocess.run(["dpkg-query", "-W", "-f=${Version}", name],
-                         capture_output=True, text=True, check=True)
-    return out.stdout
-
 
 def dump(fixture):
     """Return fixture as JSON text with one case per line, for short diffs."""
@@ -268,17 +262,7 @@ def main():
         "seed": SEED,
         "cases": cases,
     }
-    # Write atomically: a temporary file in the same directory, then rename.
-    directory = os.path.dirname(os.path.abspath(out))
-    fd, tmp = tempfile.mkstemp(prefix=".reference-", suffix=".json", dir=directory)
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as f:
-            f.write(dump(fixture))
-        os.chmod(tmp, 0o644)
-        os.replace(tmp, out)
-    except BaseException:
-        os.unlink(tmp)
-        raise
+    write_atomic(out, dump(fixture), prefix=".reference-")
     print("wrote %d cases to %s" % (len(cases), out))
 
 
