@@ -23,19 +23,9 @@ var (
 	ErrLineTooLong = textline.ErrTooLong
 )
 
-// ParseError is an error at a place in a named file. It has the same form
-// as the transcript reader's errors: name:line:column.
-type ParseError struct {
-	Name         string
-	Line, Column int // 1-based; Column counts characters of the NFC line
-	Err          error
-}
-
-func (e *ParseError) Error() string {
-	return fmt.Sprintf("%s:%d:%d: %v", e.Name, e.Line, e.Column, e.Err)
-}
-
-func (e *ParseError) Unwrap() error { return e.Err }
+// ParseError is an error at a place in a named file, in the form of the
+// transcript reader's errors: name:line:column.
+type ParseError = textline.PositionError
 
 // Translations holds the tokens of a file of free translations, one per
 // line, aligned with the lines of a transcript file.
@@ -125,9 +115,9 @@ func ReadStopWords(r io.Reader, name string) (map[string]bool, error) {
 		word := strings.TrimSpace(line)
 		col := charColumn([]byte(line), strings.Index(line, word))
 		if len(tokens) == 0 {
-			return &ParseError{name, lineNo, col, fmt.Errorf("stop word %q has no letters or digits", word)}
+			return &ParseError{Name: name, Line: lineNo, Column: col, Err: fmt.Errorf("stop word %q has no letters or digits", word)}
 		}
-		return &ParseError{name, lineNo, col, fmt.Errorf("stop word %q is %d tokens, want one per line", word, len(tokens))}
+		return &ParseError{Name: name, Line: lineNo, Column: col, Err: fmt.Errorf("stop word %q is %d tokens, want one per line", word, len(tokens))}
 	})
 	if err != nil {
 		return nil, err
@@ -156,7 +146,7 @@ func eachLine(r io.Reader, name string, f func(line string, lineNo int) error) e
 				for i > 0 && !utf8.RuneStart(line[i]) {
 					i--
 				}
-				return &ParseError{name, lineNo, charColumn(line, i), err}
+				return &ParseError{Name: name, Line: lineNo, Column: charColumn(line, i), Err: err}
 			}
 			return fmt.Errorf("%s:%d: %w", name, lineNo, err)
 		}

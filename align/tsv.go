@@ -67,8 +67,8 @@ func ReadTSV(r io.Reader, name string, cols TSVColumns, stop map[string]bool) (*
 			if len(fields) > len(header) {
 				end = len(line) - len(strings.Join(fields[len(header):], "\t")) - 1
 			}
-			return &ParseError{name, lineNo, charColumn([]byte(line), end),
-				fmt.Errorf("row has %d fields, the header %d", len(fields), len(header))}
+			return &ParseError{Name: name, Line: lineNo, Column: charColumn([]byte(line), end),
+				Err: fmt.Errorf("row has %d fields, the header %d", len(fields), len(header))}
 		}
 		b.Transcripts = append(b.Transcripts, fields[ti])
 		b.Translations.Tokens = append(b.Translations.Tokens, dropStopWords(Tokenize(fields[ei]), stop))

@@ -69,18 +69,8 @@ type Corpus struct {
 	forms   *spanForms // see IndexSpans
 }
 
-// PositionError is an error at a place in a named file.
-type PositionError struct {
-	Name         string
-	Line, Column int // 1-based; Column counts characters
-	Err          error
-}
-
-func (e *PositionError) Error() string {
-	return fmt.Sprintf("%s:%d:%d: %v", e.Name, e.Line, e.Column, e.Err)
-}
-
-func (e *PositionError) Unwrap() error { return e.Err }
+// PositionError is an error at a place in a named file: name:line:column.
+type PositionError = textline.PositionError
 
 // Errors reported by ReadCorpus, wrapped in a *PositionError.
 var (
@@ -121,7 +111,7 @@ func ReadCorpus(r io.Reader, name string, opts ReadOptions) (*Corpus, error) {
 				for i > 0 && !(utf8.RuneStart(line[i]) && norm.NFC.Properties(line[i:]).BoundaryBefore()) {
 					i--
 				}
-				return nil, &PositionError{name, lineNo, column(line, i), err}
+				return nil, &PositionError{Name: name, Line: lineNo, Column: column(line, i), Err: err}
 			}
 			return nil, fmt.Errorf("%s:%d: %w", name, lineNo, err)
 		}

@@ -22,25 +22,9 @@ var (
 	ErrLineTooLong = textline.ErrTooLong
 )
 
-// ParseError is an error at a place in a named segmented file.
-type ParseError struct {
-	Name string
-	Line int // 1-based
-	// Column is 1-based and counts characters (runes) of the line
-	// normalised to NFC, as the transcript reader's do;
-	// 0 when the error concerns the whole line.
-	Column int
-	Err    error
-}
-
-func (e *ParseError) Error() string {
-	if e.Column == 0 {
-		return fmt.Sprintf("%s:%d: %v", e.Name, e.Line, e.Err)
-	}
-	return fmt.Sprintf("%s:%d:%d: %v", e.Name, e.Line, e.Column, e.Err)
-}
-
-func (e *ParseError) Unwrap() error { return e.Err }
+// ParseError is an error at a place in a named segmented file
+// (name:line:column, or name:line for the whole line).
+type ParseError = textline.PositionError
 
 // ReadSegmented reads a segmented file from r: one utterance per line, words
 // separated by single ASCII spaces (DESIGN.md section 2). It returns the words
