@@ -7,7 +7,6 @@ import (
 	"testing"
 
 	. "github.com/juncture-project/juncture/segment"
-	"github.com/juncture-project/juncture/segment/exact"
 )
 
 // TestNgramBaseEmptyIsUniform checks that a unit model with no customers
@@ -119,18 +118,10 @@ func TestNgramBaseExactPosterior(t *testing.T) {
 			c := tinyCorpus(t, tc.lines...)
 			base := NewNgramBase(len(c.Inventory), len(tc.levels), tc.levels)
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
-			post := exact.Posterior(c, m.ExactLogJoint)
-			rng := rand.New(rand.NewPCG(uint64(i), 17))
-			g := NewWordsGibbs(RandomSegmentation(c, 0.5, rng), m, rng)
-			counts := exact.Sample(&wordsChain{g, rng}, 100, 10, 10000)
-			r := exact.ChiSquare(post, counts)
-			if r.P < 1e-3 {
-				t.Errorf("sampled segmentations differ from the exact posterior: %v", r)
-			}
+			checkGibbsExact(t, m, rand.New(rand.NewPCG(uint64(i), 17)), 10000)
 			if err := m.Check(); err != nil {
 				t.Error(err)
 			}
-			t.Logf("%v (acceptance %.2f)", r, g.AcceptanceRate())
 		})
 	}
 }

@@ -18,6 +18,22 @@ type wordsChain struct {
 func (c *wordsChain) Step()                  { c.g.Sweep(1, c.rng) }
 func (c *wordsChain) Current() *Segmentation { return c.g.Seg }
 
+// checkGibbsExact runs the gap sampler on m from a random segmentation
+// and compares n thinned samples with the exact posterior of m's model by
+// a chi-square test; it returns the sampler for further checks.
+func checkGibbsExact(t *testing.T, m *Words, rng *rand.Rand, n int) *WordsGibbs {
+	t.Helper()
+	post := exact.Posterior(m.Corpus, m.ExactLogJoint)
+	g := NewWordsGibbs(RandomSegmentation(m.Corpus, 0.5, rng), m, rng)
+	counts := exact.Sample(&wordsChain{g, rng}, 100, 10, n)
+	r := exact.ChiSquare(post, counts)
+	if r.P < 1e-3 {
+		t.Errorf("sampled segmentations differ from the exact posterior: %v", r)
+	}
+	t.Logf("%v (acceptance %.2f)", r, g.AcceptanceRate())
+	return g
+}
+
 // TestWordsExactMatchesUnigram checks the franchise enumeration against
 // the closed form of the Dirichlet-process unigram model: with no discount
 // the seating sums must give the Polya-urn marginal.
@@ -78,15 +94,7 @@ func TestWordsGibbsExactPosterior(t *testing.T) {
 			c := tinyCorpus(t, tc.lines...)
 			base := UniformBase{WordEnd: tc.wordEnd, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
-			post := exact.Posterior(c, m.ExactLogJoint)
-			rng := rand.New(rand.NewPCG(uint64(i), 9))
-			g := NewWordsGibbs(RandomSegmentation(c, 0.5, rng), m, rng)
-			counts := exact.Sample(&wordsChain{g, rng}, 100, 10, 20000)
-			r := exact.ChiSquare(post, counts)
-			if r.P < 1e-3 {
-				t.Errorf("sampled segmentations differ from the exact posterior: %v", r)
-			}
-			t.Logf("%v (acceptance %.2f)", r, g.AcceptanceRate())
+			checkGibbsExact(t, m, rand.New(rand.NewPCG(uint64(i), 9)), 20000)
 		})
 	}
 }
