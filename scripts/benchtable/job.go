@@ -48,6 +48,12 @@ type result struct {
 	// It includes the per-sweep trace and hyperparameter sampling and the
 	// model rebuilds at block starts.
 	SecondsPerSweep float64 `json:"seconds_per_sweep"`
+	// CPUSecondsPerSweep is the same span measured in the process's CPU
+	// time (user and system, every thread), or 0 where the system does not
+	// report it. On a machine shared with other work it varies less than
+	// wall-clock time, which stretches whenever another process holds a
+	// core.
+	CPUSecondsPerSweep float64 `json:"cpu_seconds_per_sweep"`
 	// PeakKB is the child's peak resident set size in KiB.
 	PeakKB int64 `json:"-"`
 }
@@ -85,11 +91,12 @@ func (j job) run() (*result, error) {
 	// Run serialises the calls of Progress, one after every sweep of any
 	// chain.
 	var first, last time.Time
+	var firstCPU, lastCPU float64
 	ticks := 0
 	progress := func() {
-		last = time.Now()
+		last, lastCPU = time.Now(), cpuSeconds()
 		if ticks == 0 {
-			first = last
+			first, firstCPU = last, lastCPU
 		}
 		ticks++
 	}
@@ -119,6 +126,7 @@ func (j job) run() (*result, error) {
 		// From the end of the first sweep to the end of the last: the
 		// first model building and the decoding are left out.
 		res.SecondsPerSweep = last.Sub(first).Seconds() / float64(ticks-1) * float64(j.Config.Chains)
+		res.CPUSecondsPerSweep = (lastCPU - firstCPU) / float64(ticks-1) * float64(j.Config.Chains)
 	}
 	if j.Mode == "learn" {
 		s, err := evalcorpus.Score(learned.Decoded, utts)

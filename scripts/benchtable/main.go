@@ -278,9 +278,9 @@ func run(args []string, stdout, stderr io.Writer) error {
 	}
 	if mode == "scale" {
 		for _, r := range rows {
-			if r.Ratio > linearTolerance {
-				fmt.Fprintf(stderr, "benchtable: %s %s/%s/%s at %dx costs %.2f times as much per unit as at the smallest scale (more than %.1f)\n",
-					r.Corpus, r.Model, r.Sampler, r.Base, r.Scale, r.Ratio, linearTolerance)
+			if r.Ratio > linearTolerance || r.CPURatio > linearTolerance {
+				fmt.Fprintf(stderr, "benchtable: %s %s/%s/%s at %dx costs %.2f times (CPU time: %.2f times) as much per unit as at the smallest scale (more than %.1f)\n",
+					r.Corpus, r.Model, r.Sampler, r.Base, r.Scale, r.Ratio, r.CPURatio, linearTolerance)
 			}
 		}
 	}

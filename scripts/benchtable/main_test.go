@@ -99,7 +99,7 @@ func TestSummarize(t *testing.T) {
 func fakeResult(corpus, model, sampler string, scale int, seed uint64, units int, f, seconds float64, peakKB int64) result {
 	j := job{Mode: "learn", Source: evalcorpus.Source{Name: corpus}, Scale: scale}
 	j.Config = (&options{iterations: 100, burnin: 80, chains: 1, maxWordLen: 24}).config(runConfig{model, sampler, "uniform"}, seed)
-	r := result{Job: j, Utterances: units / 10, Units: units, Seconds: seconds, SecondsPerSweep: seconds / 100, PeakKB: peakKB}
+	r := result{Job: j, Utterances: units / 10, Units: units, Seconds: seconds, SecondsPerSweep: seconds / 100, CPUSecondsPerSweep: seconds / 200, PeakKB: peakKB}
 	if f >= 0 {
 		r.Scores = &score.Scores{Token: score.PRF{F: f}, Boundary: score.PRF{F: f + 0.2}, Lexicon: score.PRF{F: f / 2}}
 	} else {
@@ -147,8 +147,8 @@ func TestAggregate(t *testing.T) {
 	// 3/1000 (1.0).
 	want := []float64{1, 1.1, 1.25, 1, 1}
 	for i, r := range rows {
-		if r.TokenF != nil || math.Abs(r.Ratio-want[i]) > 1e-9 {
-			t.Errorf("scale row %d: ratio %v, want %v (token F %v)", i, r.Ratio, want[i], r.TokenF)
+		if r.TokenF != nil || math.Abs(r.Ratio-want[i]) > 1e-9 || math.Abs(r.CPURatio-want[i]) > 1e-9 {
+			t.Errorf("scale row %d: ratio %v, CPU ratio %v, want %v (token F %v)", i, r.Ratio, r.CPURatio, want[i], r.TokenF)
 		}
 	}
 }
@@ -226,6 +226,9 @@ func TestRunChild(t *testing.T) {
 		}
 		if !(res.SecondsPerSweep > 0 && res.SecondsPerSweep <= res.Seconds) {
 			t.Errorf("%s: %v s per sweep of %v s", mode, res.SecondsPerSweep, res.Seconds)
+		}
+		if res.CPUSecondsPerSweep < 0 || res.CPUSecondsPerSweep > res.SecondsPerSweep*float64(runtime.NumCPU())+0.05 {
+			t.Errorf("%s: %v CPU s per sweep with %v s wall on %d CPUs", mode, res.CPUSecondsPerSweep, res.SecondsPerSweep, runtime.NumCPU())
 		}
 		if runtime.GOOS == "linux" && res.PeakKB <= 0 {
 			t.Errorf("%s: peak memory %d KiB", mode, res.PeakKB)

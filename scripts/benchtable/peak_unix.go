@@ -21,3 +21,15 @@ func peakKB(ps *os.ProcessState) int64 {
 	}
 	return int64(ru.Maxrss)
 }
+
+// cpuSeconds returns the CPU time this process has used so far, user and
+// system, summed over its threads (getrusage(2), RUSAGE_SELF); 0 if the
+// call fails.
+func cpuSeconds() float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		return 0
+	}
+	tv := func(t syscall.Timeval) float64 { return float64(t.Sec) + float64(t.Usec)/1e6 }
+	return tv(ru.Utime) + tv(ru.Stime)
+}

@@ -63,8 +63,13 @@ type row struct {
 	NsPerUnitSweep  stat `json:"ns_per_unit_sweep"`
 	// Ratio is NsPerUnitSweep's mean over that of the same configuration
 	// at the smallest scale; scale mode only.
-	Ratio   float64 `json:"ratio,omitempty"`
-	PeakMiB stat    `json:"peak_mib"`
+	Ratio float64 `json:"ratio,omitempty"`
+	// CPUNsPerUnitSweep and CPURatio are NsPerUnitSweep and Ratio from
+	// the process's CPU time instead of wall-clock time (0 where it is not
+	// measured): the figures to trust on a machine other work shares.
+	CPUNsPerUnitSweep stat    `json:"cpu_ns_per_unit_sweep"`
+	CPURatio          float64 `json:"cpu_ratio,omitempty"`
+	PeakMiB           stat    `json:"peak_mib"`
 }
 
 // rowKey identifies the results a row summarises.
@@ -96,7 +101,7 @@ func aggregate(results []result) []row {
 		rw := row{Corpus: k.corpus, Model: k.model, Base: k.base, Sampler: k.sampler, Scale: k.scale,
 			Utterances: first.Utterances, Units: first.Units,
 			Iterations: first.Job.Config.Iterations, Chains: first.Job.Config.Chains}
-		var tok, bnd, lex, secs, perSweep, perUnit, peak []float64
+		var tok, bnd, lex, secs, perSweep, perUnit, cpuPerUnit, peak []float64
 		for _, r := range g {
 			rw.Seeds = append(rw.Seeds, r.Job.Config.Seed)
 			if r.Scores != nil {
@@ -108,6 +113,7 @@ func aggregate(results []result) []row {
 			secs = append(secs, r.Seconds)
 			perSweep = append(perSweep, sweep)
 			perUnit = append(perUnit, sweep*1e9/float64(max(1, r.Units)))
+			cpuPerUnit = append(cpuPerUnit, r.CPUSecondsPerSweep*1e9/float64(max(1, r.Units)))
 			peak = append(peak, float64(r.PeakKB)/1024)
 		}
 		if len(tok) > 0 {
@@ -115,6 +121,7 @@ func aggregate(results []result) []row {
 			rw.TokenF, rw.BoundaryF, rw.LexiconF = &t, &b, &l
 		}
 		rw.Seconds, rw.SecondsPerSweep, rw.NsPerUnitSweep = summarize(secs), summarize(perSweep), summarize(perUnit)
+		rw.CPUNsPerUnitSweep = summarize(cpuPerUnit)
 		rw.PeakMiB = summarize(peak)
 		rows[i] = rw
 	}
@@ -130,6 +137,9 @@ func aggregate(results []result) []row {
 		}
 		if smallest.NsPerUnitSweep.Mean > 0 {
 			rows[i].Ratio = rows[i].NsPerUnitSweep.Mean / smallest.NsPerUnitSweep.Mean
+		}
+		if smallest.CPUNsPerUnitSweep.Mean > 0 {
+			rows[i].CPURatio = rows[i].CPUNsPerUnitSweep.Mean / smallest.CPUNsPerUnitSweep.Mean
 		}
 	}
 	return rows
@@ -166,7 +176,8 @@ var tsvHeader = []string{"corpus", "model", "base", "sampler", "scale", "utteran
 	"iterations", "chains", "seeds",
 	"token_f", "token_f_sd", "boundary_f", "boundary_f_sd", "lexicon_f", "lexicon_f_sd",
 	"seconds", "seconds_sd", "seconds_per_sweep", "seconds_per_sweep_sd",
-	"ns_per_unit_sweep", "ns_per_unit_sweep_sd", "ratio", "peak_mib", "peak_mib_sd"}
+	"ns_per_unit_sweep", "ns_per_unit_sweep_sd", "ratio",
+	"cpu_ns_per_unit_sweep", "cpu_ns_per_unit_sweep_sd", "cpu_ratio", "peak_mib", "peak_mib_sd"}
 
 func writeTSV(w io.Writer, rows []row) error {
 	var b strings.Builder
@@ -184,9 +195,12 @@ func writeTSV(w io.Writer, rows []row) error {
 		for i, s := range r.Seeds {
 			seeds[i] = strconv.FormatUint(s, 10)
 		}
-		ratio := ""
+		ratio, cpuRatio := "", ""
 		if r.Ratio != 0 {
 			ratio = num(r.Ratio)
+		}
+		if r.CPURatio != 0 {
+			cpuRatio = num(r.CPURatio)
 		}
 		cells := []string{r.Corpus, r.Model, r.Base, r.Sampler, strconv.Itoa(r.Scale),
 			strconv.Itoa(r.Utterances), strconv.Itoa(r.Units), strconv.Itoa(r.Iterations),
@@ -198,6 +212,8 @@ func writeTSV(w io.Writer, rows []row) error {
 		cells = append(cells, pair(&r.SecondsPerSweep)...)
 		cells = append(cells, pair(&r.NsPerUnitSweep)...)
 		cells = append(cells, ratio)
+		cells = append(cells, pair(&r.CPUNsPerUnitSweep)...)
+		cells = append(cells, cpuRatio)
 		cells = append(cells, pair(&r.PeakMiB)...)
 		b.WriteString(strings.Join(cells, "\t"))
 		b.WriteByte('\n')
@@ -218,12 +234,13 @@ func cell(s stat, seeds, prec int) string {
 func writeText(w io.Writer, rows []row, mode string) error {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	if mode == "scale" {
-		fmt.Fprintln(tw, "corpus\tmodel\tbase\tsampler\tscale\tutterances\tunits\titerations\tseeds\ts/sweep\tns/unit/sweep\tratio\tpeak MiB")
+		fmt.Fprintln(tw, "corpus\tmodel\tbase\tsampler\tscale\tutterances\tunits\titerations\tseeds\ts/sweep\tns/unit/sweep\tratio\tcpu ns/unit/sweep\tcpu ratio\tpeak MiB")
 		for _, r := range rows {
 			n := len(r.Seeds)
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%dx\t%d\t%d\t%d\t%d\t%s\t%s\t%.2f\t%s\n",
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%dx\t%d\t%d\t%d\t%d\t%s\t%s\t%.2f\t%s\t%.2f\t%s\n",
 				r.Corpus, r.Model, r.Base, r.Sampler, r.Scale, r.Utterances, r.Units, r.Iterations, n,
-				cell(r.SecondsPerSweep, n, 4), cell(r.NsPerUnitSweep, n, 0), r.Ratio, cell(r.PeakMiB, n, 0))
+				cell(r.SecondsPerSweep, n, 4), cell(r.NsPerUnitSweep, n, 0), r.Ratio,
+				cell(r.CPUNsPerUnitSweep, n, 0), r.CPURatio, cell(r.PeakMiB, n, 0))
 		}
 		return tw.Flush()
 	}
