@@ -54,6 +54,10 @@ type result struct {
 	// wall-clock time, which stretches whenever another process holds a
 	// core.
 	CPUSecondsPerSweep float64 `json:"cpu_seconds_per_sweep"`
+	// LogJoint is the mean over chains of the log joint probability of
+	// each chain's last sample (the model's trace value), to compare where
+	// different starts or settings end up under the same model.
+	LogJoint float64 `json:"log_joint"`
 	// PeakKB is the child's peak resident set size in KiB.
 	PeakKB int64 `json:"-"`
 }
@@ -127,6 +131,11 @@ func (j job) run() (*result, error) {
 		// first model building and the decoding are left out.
 		res.SecondsPerSweep = last.Sub(first).Seconds() / float64(ticks-1) * float64(j.Config.Chains)
 		res.CPUSecondsPerSweep = (lastCPU - firstCPU) / float64(ticks-1) * float64(j.Config.Chains)
+	}
+	for _, st := range learned.Chains {
+		if n := len(st.Trace); n > 0 {
+			res.LogJoint += st.Trace[n-1].LogProb / float64(len(learned.Chains))
+		}
 	}
 	if j.Mode == "learn" {
 		s, err := evalcorpus.Score(learned.Decoded, utts)

@@ -102,6 +102,8 @@ func fakeResult(corpus, model, sampler string, scale int, seed uint64, units int
 	r := result{Job: j, Utterances: units / 10, Units: units, Seconds: seconds, SecondsPerSweep: seconds / 100, CPUSecondsPerSweep: seconds / 200, PeakKB: peakKB}
 	if f >= 0 {
 		r.Scores = &score.Scores{Token: score.PRF{F: f}, Boundary: score.PRF{F: f + 0.2}, Lexicon: score.PRF{F: f / 2}}
+		r.Scores.Counts.Token.Predicted = units / 3
+		r.LogJoint = -f * float64(units)
 	} else {
 		r.Job.Mode = "scale"
 	}
@@ -226,6 +228,9 @@ func TestRunChild(t *testing.T) {
 		}
 		if !(res.SecondsPerSweep > 0 && res.SecondsPerSweep <= res.Seconds) {
 			t.Errorf("%s: %v s per sweep of %v s", mode, res.SecondsPerSweep, res.Seconds)
+		}
+		if !(res.LogJoint < 0) {
+			t.Errorf("%s: log joint %v, want a log probability below 0", mode, res.LogJoint)
 		}
 		if res.CPUSecondsPerSweep < 0 || res.CPUSecondsPerSweep > res.SecondsPerSweep*float64(runtime.NumCPU())+0.05 {
 			t.Errorf("%s: %v CPU s per sweep with %v s wall on %d CPUs", mode, res.CPUSecondsPerSweep, res.SecondsPerSweep, runtime.NumCPU())

@@ -55,6 +55,11 @@ type row struct {
 	TokenF    *stat `json:"token_f,omitempty"`
 	BoundaryF *stat `json:"boundary_f,omitempty"`
 	LexiconF  *stat `json:"lexicon_f,omitempty"`
+	// Words is the number of words of the decoded segmentation (learn
+	// mode) and LogJoint the log joint probability of the chains' last
+	// samples: where a configuration ends up, beside how well.
+	Words    *stat `json:"words,omitempty"`
+	LogJoint stat  `json:"log_joint"`
 	// Seconds is the wall-clock time of learning, SecondsPerSweep that of
 	// one sweep (see result.SecondsPerSweep) and NsPerUnitSweep the latter
 	// over the units.
@@ -101,14 +106,16 @@ func aggregate(results []result) []row {
 		rw := row{Corpus: k.corpus, Model: k.model, Base: k.base, Sampler: k.sampler, Scale: k.scale,
 			Utterances: first.Utterances, Units: first.Units,
 			Iterations: first.Job.Config.Iterations, Chains: first.Job.Config.Chains}
-		var tok, bnd, lex, secs, perSweep, perUnit, cpuPerUnit, peak []float64
+		var tok, bnd, lex, words, joint, secs, perSweep, perUnit, cpuPerUnit, peak []float64
 		for _, r := range g {
 			rw.Seeds = append(rw.Seeds, r.Job.Config.Seed)
 			if r.Scores != nil {
 				tok = append(tok, r.Scores.Token.F)
 				bnd = append(bnd, r.Scores.Boundary.F)
 				lex = append(lex, r.Scores.Lexicon.F)
+				words = append(words, float64(r.Scores.Counts.Token.Predicted))
 			}
+			joint = append(joint, r.LogJoint)
 			sweep := r.SecondsPerSweep
 			secs = append(secs, r.Seconds)
 			perSweep = append(perSweep, sweep)
@@ -118,8 +125,10 @@ func aggregate(results []result) []row {
 		}
 		if len(tok) > 0 {
 			t, b, l := summarize(tok), summarize(bnd), summarize(lex)
-			rw.TokenF, rw.BoundaryF, rw.LexiconF = &t, &b, &l
+			w := summarize(words)
+			rw.TokenF, rw.BoundaryF, rw.LexiconF, rw.Words = &t, &b, &l, &w
 		}
+		rw.LogJoint = summarize(joint)
 		rw.Seconds, rw.SecondsPerSweep, rw.NsPerUnitSweep = summarize(secs), summarize(perSweep), summarize(perUnit)
 		rw.CPUNsPerUnitSweep = summarize(cpuPerUnit)
 		rw.PeakMiB = summarize(peak)
@@ -175,6 +184,7 @@ func writeRows(w io.Writer, rows []row, mode, format string) error {
 var tsvHeader = []string{"corpus", "model", "base", "sampler", "scale", "utterances", "units",
 	"iterations", "chains", "seeds",
 	"token_f", "token_f_sd", "boundary_f", "boundary_f_sd", "lexicon_f", "lexicon_f_sd",
+	"words", "words_sd", "log_joint", "log_joint_sd",
 	"seconds", "seconds_sd", "seconds_per_sweep", "seconds_per_sweep_sd",
 	"ns_per_unit_sweep", "ns_per_unit_sweep_sd", "ratio",
 	"cpu_ns_per_unit_sweep", "cpu_ns_per_unit_sweep_sd", "cpu_ratio", "peak_mib", "peak_mib_sd"}
@@ -208,6 +218,8 @@ func writeTSV(w io.Writer, rows []row) error {
 		cells = append(cells, pair(r.TokenF)...)
 		cells = append(cells, pair(r.BoundaryF)...)
 		cells = append(cells, pair(r.LexiconF)...)
+		cells = append(cells, pair(r.Words)...)
+		cells = append(cells, pair(&r.LogJoint)...)
 		cells = append(cells, pair(&r.Seconds)...)
 		cells = append(cells, pair(&r.SecondsPerSweep)...)
 		cells = append(cells, pair(&r.NsPerUnitSweep)...)
@@ -244,7 +256,7 @@ func writeText(w io.Writer, rows []row, mode string) error {
 		}
 		return tw.Flush()
 	}
-	fmt.Fprintln(tw, "corpus\tmodel\tbase\tsampler\tutterances\titerations\tchains\tseeds\ttoken F\tboundary F\tlexicon F\tseconds\tpeak MiB")
+	fmt.Fprintln(tw, "corpus\tmodel\tbase\tsampler\tutterances\titerations\tchains\tseeds\ttoken F\tboundary F\tlexicon F\twords\tlog joint\tseconds\tpeak MiB")
 	for _, r := range rows {
 		n := len(r.Seeds)
 		f := func(s *stat) string {
@@ -253,9 +265,13 @@ func writeText(w io.Writer, rows []row, mode string) error {
 			}
 			return cell(*s, n, 3)
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%s\t%s\t%s\t%s\t%s\n",
+		words := "-"
+		if r.Words != nil {
+			words = cell(*r.Words, n, 0)
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n",
 			r.Corpus, r.Model, r.Base, r.Sampler, r.Utterances, r.Iterations, r.Chains, n,
-			f(r.TokenF), f(r.BoundaryF), f(r.LexiconF), cell(r.Seconds, n, 1), cell(r.PeakMiB, n, 0))
+			f(r.TokenF), f(r.BoundaryF), f(r.LexiconF), words, cell(r.LogJoint, n, 0), cell(r.Seconds, n, 1), cell(r.PeakMiB, n, 0))
 	}
 	return tw.Flush()
 }
