@@ -22,7 +22,7 @@ type PitmanYor struct {
 // where c counts customers and t tables.
 type restaurants struct {
 	params *PitmanYor
-	index  map[uint64]int32 // (context, dish) -> seats
+	index  seatIndex // (context, dish) -> seats
 	// first has the seats of context 0, indexed by dish+1, so the most
 	// used restaurant (the unigram level's only one) needs no hashing;
 	// -1 where absent.
@@ -40,7 +40,7 @@ type restaurants struct {
 }
 
 func newRestaurants(p *PitmanYor) *restaurants {
-	return &restaurants{params: p, index: make(map[uint64]int32)}
+	return &restaurants{params: p}
 }
 
 func seatKey(ctx int32, w WordType) uint64 { return uint64(uint32(ctx))<<32 | uint64(uint32(w)) }
@@ -52,7 +52,7 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		if d := int(w) + 1; d < len(r.first) && r.first[d] >= 0 {
 			return &r.seats[r.first[d]]
 		}
-	} else if i, ok := r.index[seatKey(ctx, w)]; ok {
+	} else if i, ok := r.index.get(seatKey(ctx, w)); ok {
 		return &r.seats[i]
 	}
 	if !create {
@@ -63,7 +63,7 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		r.customers = append(r.customers, 0)
 		r.tables = append(r.tables, 0)
 	}
-	r.index[k] = int32(len(r.seats))
+	r.index.put(k, int32(len(r.seats)))
 	if ctx == 0 {
 		for int(w)+1 >= len(r.first) {
 			r.first = append(r.first, -1)
@@ -98,7 +98,7 @@ func (r *restaurants) dropSeats(n int) {
 			panic("segment: dropping a seat with customers")
 		}
 		ctx, w := r.seatCtx[i], r.dishes[i]
-		delete(r.index, seatKey(ctx, w))
+		r.index.del(seatKey(ctx, w))
 		if ctx == 0 {
 			r.first[w+1] = -1
 		}
