@@ -3,6 +3,7 @@ package align
 import (
 	"fmt"
 	"math/rand/v2"
+	"slices"
 )
 
 // randomCorpus returns n utterances of 1..maxWords word ids below nWords,
@@ -55,4 +56,34 @@ func seenWords(m *Model, words [][]int32) []int32 {
 		}
 	}
 	return out
+}
+
+// mover is what the samplers change one word at a time: Sums and
+// ReverseFactor.
+type mover interface {
+	SplitDelta(u int, w, w1, w2 int32) float64
+	JoinDelta(u int, w1, w2, w int32) float64
+	Split(u int, w, w1, w2 int32)
+	Join(u int, w1, w2, w int32)
+}
+
+// randomMove splits a random word of utterance u (words ws) in two, or
+// joins two neighbours, through mv, with word ids below 45 (those from 40
+// up are words a table built from randomCorpus has never seen). It
+// returns the new words and the change mv predicted before applying it.
+func randomMove(rng *rand.Rand, mv mover, u int, ws []int32) (after []int32, predicted float64) {
+	if len(ws) == 1 || rng.IntN(2) == 0 {
+		i := rng.IntN(len(ws))
+		w1, w2 := int32(rng.IntN(45)), int32(rng.IntN(45))
+		after = slices.Concat(ws[:i], []int32{w1, w2}, ws[i+1:])
+		predicted = mv.SplitDelta(u, ws[i], w1, w2)
+		mv.Split(u, ws[i], w1, w2)
+		return after, predicted
+	}
+	i := rng.IntN(len(ws) - 1)
+	w := int32(rng.IntN(45))
+	after = slices.Concat(ws[:i], []int32{w}, ws[i+2:])
+	predicted = mv.JoinDelta(u, ws[i], ws[i+1], w)
+	mv.Join(u, ws[i], ws[i+1], w)
+	return after, predicted
 }

@@ -3,7 +3,6 @@ package align
 import (
 	"math"
 	"math/rand/v2"
-	"slices"
 	"testing"
 )
 
@@ -25,22 +24,7 @@ func TestSumsRandomMoves(t *testing.T) {
 			u := rng.IntN(len(words))
 			ws := words[u]
 			before := m.LogProb(u, ws)
-			var after []int32
-			var predicted float64
-			// Fresh ids (>= 40) are words the table has never seen.
-			if len(ws) == 1 || rng.IntN(2) == 0 {
-				i := rng.IntN(len(ws))
-				w1, w2 := int32(rng.IntN(45)), int32(rng.IntN(45))
-				after = slices.Concat(ws[:i], []int32{w1, w2}, ws[i+1:])
-				predicted = s.SplitDelta(u, ws[i], w1, w2)
-				s.Split(u, ws[i], w1, w2)
-			} else {
-				i := rng.IntN(len(ws) - 1)
-				w := int32(rng.IntN(45))
-				after = slices.Concat(ws[:i], []int32{w}, ws[i+2:])
-				predicted = s.JoinDelta(u, ws[i], ws[i+1], w)
-				s.Join(u, ws[i], ws[i+1], w)
-			}
+			after, predicted := randomMove(rng, s, u, ws)
 			words[u] = after
 			want := m.LogProb(u, after) - before
 			if math.Abs(predicted-want) > 1e-9*max(1, math.Abs(want)) {

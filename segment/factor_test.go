@@ -10,6 +10,11 @@ import (
 	"github.com/juncture-project/juncture/segment/exact"
 )
 
+var (
+	_ UtteranceFactor = (*align.Factor)(nil)
+	_ UtteranceFactor = (*align.ReverseFactor)(nil)
+)
+
 type factorChain struct {
 	step func()
 	seg  *Segmentation
@@ -18,27 +23,42 @@ type factorChain struct {
 func (c factorChain) Step()                  { c.step() }
 func (c factorChain) Current() *Segmentation { return c.seg }
 
+// logProbTable is the fixed table behind a translation factor, as the
+// exact posterior needs it.
+type logProbTable interface {
+	LogProb(u int, words []int32) float64
+}
+
 // TestTranslationFactorExactPosterior: with a fixed IBM Model 1 table the
-// target is P(segmentation) * prod_u P(translation_u | words)^weight; both
-// samplers must reproduce it on tiny parallel corpora.
+// target is P(segmentation) * prod_u F_u(words)^weight, where F_u is
+// P(translation_u | words) (align.Factor) or, in Brown et al.'s
+// direction, P(words | translation_u) (align.ReverseFactor, also with its
+// rare-word rule and its ratio to the background); both samplers must
+// reproduce it on tiny parallel corpora. The boundary sampler uses
+// SplitDelta and JoinDelta, the blocked one Delta and Set.
 func TestTranslationFactorExactPosterior(t *testing.T) {
 	lines := []string{"abab", "ab", "ba"}
 	translations := [][]string{{"dog", "dog"}, {"dog"}, {"cat"}}
 	for i, tc := range []struct {
-		order   int
-		sampler string
-		weight  float64
+		direction string
+		order     int
+		sampler   string
+		weight    float64
+		minOcc    int
+		ratio     bool
 	}{
-		{1, "boundary", 1}, {1, "blocked", 2}, {2, "boundary", 1}, {2, "blocked", 0.5},
+		{"forward", 1, "boundary", 1, 0, false}, {"forward", 1, "blocked", 2, 0, false},
+		{"forward", 2, "boundary", 1, 0, false}, {"forward", 2, "blocked", 0.5, 0, false},
+		{"reverse", 1, "boundary", 1, 0, false}, {"reverse", 1, "blocked", 2, 2, false},
+		{"reverse", 1, "boundary", 1, 2, true}, {"reverse", 2, "boundary", 1, 0, false},
+		{"reverse", 2, "blocked", 0.5, 0, true},
 	} {
-		t.Run(fmt.Sprint(i), func(t *testing.T) {
+		t.Run(fmt.Sprint(tc.direction, i), func(t *testing.T) {
 			c := tinyCorpus(t, lines...)
 			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, PitmanYor{0.2, 2}, PitmanYor{0.1, 3}, base)
 			rng := rand.New(rand.NewPCG(uint64(i), 13))
 			seg := RandomSegmentation(c, 1, rng)
-			var step func()
-			var f *align.Factor
 			ids := func(s *Segmentation) [][]int32 {
 				words := make([][]int32, c.Len())
 				for u := range words {
@@ -46,18 +66,25 @@ func TestTranslationFactorExactPosterior(t *testing.T) {
 				}
 				return words
 			}
+			var f UtteranceFactor
+			var table logProbTable
+			if tc.direction == "reverse" {
+				rf := align.NewReverseFactor(translations, 1, ids(seg), 5, tc.minOcc, tc.ratio)
+				f, table = rf, rf.Model()
+			} else {
+				ff := align.NewFactor(translations, 1, ids(seg), 5, tc.minOcc)
+				f, table = ff, ff.Model()
+			}
+			var step func()
 			if tc.sampler == "blocked" {
 				g := NewBlockedSampler(seg, m, 0, rng)
-				f = align.NewFactor(translations, 1, ids(seg), 5, 0)
 				g.Factor, g.Weight = f, tc.weight
 				step = func() { g.Sweep(1, rng) }
 			} else {
 				g := NewWordsGibbs(seg, m, rng)
-				f = align.NewFactor(translations, 1, ids(seg), 5, 0)
 				g.Factor, g.Weight = f, tc.weight
 				step = func() { g.Sweep(1, rng) }
 			}
-			table := f.Model()
 			post := exact.Posterior(c, func(s *Segmentation) float64 {
 				lp := m.ExactLogJoint(s)
 				for u, ws := range ids(s) {

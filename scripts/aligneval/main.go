@@ -14,7 +14,12 @@
 // the translation factor is built as 'juncture learn --translations' builds
 // it: align.NewFactor(tokens, 1, words, 10, min-count) at every block. A
 // weight of 0 means no factor at all: the run without the prior, which
-// every other weight is compared with, seed for seed.
+// every other weight is compared with, seed for seed. -direction chooses
+// the factor: forward is the one above; reverse (align.NewReverseFactor,
+// P(words | translation), Brown et al.'s direction), ratio (reverse over
+// the words' background) and both (forward times reverse) are built the
+// same way, from the segmentation at every block with beta 1, 10 EM
+// iterations and min-count.
 //
 // Glosses come from lexicon.AddGlosses with its defaults on the decoded
 // segmentation. Precision is measured on discovered types seen at least
@@ -59,6 +64,7 @@ type options struct {
 	langs              []string
 	seeds              []uint64
 	models, samplers   []string
+	directions         []string
 	weights            []float64
 	minCounts          []int
 	iterations, chains int
@@ -69,11 +75,22 @@ type options struct {
 }
 
 // Setting is one learner configuration. Weight 0 is the run without the
-// translation prior; MinCount is then irrelevant and 0.
+// translation prior; MinCount and Direction are then irrelevant and zero.
 type Setting struct {
 	Model, Sampler string
 	Weight         float64
 	MinCount       int
+	// Direction is the translation factor's: see directions. The empty
+	// string is forward.
+	Direction string
+}
+
+// directions describes the translation factors -direction chooses from.
+var directions = map[string]string{
+	"forward": "IBM Model 1 P(translation | words), as 'juncture learn' builds it (align.NewFactor)",
+	"reverse": "IBM Model 1 P(words | translation), Brown et al.'s direction (align.NewReverseFactor)",
+	"ratio":   "reverse divided by each word's background probability (align.Reverse.Ratio)",
+	"both":    "the product of forward and reverse",
 }
 
 func (s Setting) baseline() bool { return s.Weight == 0 }
@@ -82,7 +99,11 @@ func (s Setting) String() string {
 	if s.baseline() {
 		return fmt.Sprintf("%s/%s, no prior", s.Model, s.Sampler)
 	}
-	return fmt.Sprintf("%s/%s, weight %g, min-count %d", s.Model, s.Sampler, s.Weight, s.MinCount)
+	d := ""
+	if s.Direction != "" && s.Direction != "forward" {
+		d = ", " + s.Direction
+	}
+	return fmt.Sprintf("%s/%s, weight %g, min-count %d%s", s.Model, s.Sampler, s.Weight, s.MinCount, d)
 }
 
 // config returns the learner settings of s for one seed.
@@ -128,7 +149,7 @@ func parseFlags(args []string) (*options, error) {
 	fs := flag.NewFlagSet("aligneval", flag.ContinueOnError)
 	o := &options{}
 	d := segment.DefaultConfig()
-	var langs, seeds, models, samplers, weights, minCounts string
+	var langs, seeds, models, samplers, weights, minCounts, dirs string
 	fs.StringVar(&o.dataDir, "data", "", "directory holding one corpus per language (default: data/eval/udhr of the checkout)")
 	fs.StringVar(&o.dictDir, "dict-dir", debianDictDir, "directory of the FreeDict dictd files")
 	fs.StringVar(&o.dictSet, "dicts", "all", "dictionaries judging glosses: all (both directions where Debian has them) or one (one per language)")
@@ -140,6 +161,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&samplers, "sampler", "boundary", "samplers, comma-separated (boundary, blocked, auto)")
 	fs.StringVar(&weights, "weights", "0,1", "translation weights, comma-separated; 0 is the run without the prior and is always included")
 	fs.StringVar(&minCounts, "min-count", strconv.Itoa(d.TranslationMinCount), "translation min-counts, comma-separated")
+	fs.StringVar(&dirs, "direction", "forward", "translation factors, comma-separated: forward (P(translation | words)), reverse (P(words | translation)), ratio (reverse over the words' background) or both (forward times reverse)")
 	fs.IntVar(&o.iterations, "iterations", 300, "sweeps per chain")
 	fs.IntVar(&o.chains, "chains", d.Chains, "chains per run")
 	fs.IntVar(&o.procs, "procs", runtime.GOMAXPROCS(0), "most chains running at once")
@@ -163,6 +185,12 @@ func parseFlags(args []string) (*options, error) {
 	o.langs = splitList(langs)
 	o.models = splitList(models)
 	o.samplers = splitList(samplers)
+	o.directions = splitList(dirs)
+	for _, d := range o.directions {
+		if directions[d] == "" {
+			return nil, fmt.Errorf("-direction: unknown %q (forward, reverse, ratio, both)", d)
+		}
+	}
 	var err error
 	if o.seeds, err = parseList(seeds, func(s string) (uint64, error) { return strconv.ParseUint(s, 10, 64) }); err != nil {
 		return nil, fmt.Errorf("-seeds: %w", err)
@@ -180,8 +208,8 @@ func parseFlags(args []string) (*options, error) {
 		return nil, fmt.Errorf("-min-count: %w", err)
 	}
 	switch {
-	case len(o.langs) == 0 || len(o.seeds) == 0 || len(o.models) == 0 || len(o.samplers) == 0 || len(o.minCounts) == 0:
-		return nil, errors.New("-langs, -seeds, -model, -sampler and -min-count need at least one value each")
+	case len(o.langs) == 0 || len(o.seeds) == 0 || len(o.models) == 0 || len(o.samplers) == 0 || len(o.minCounts) == 0 || len(o.directions) == 0:
+		return nil, errors.New("-langs, -seeds, -model, -sampler, -min-count and -direction need at least one value each")
 	case o.procs < 1:
 		return nil, fmt.Errorf("-procs must be at least 1, got %d", o.procs)
 	case o.glossMin < 1:
@@ -220,7 +248,8 @@ func parseList[T any](s string, parse func(string) (T, error)) ([]T, error) {
 }
 
 // settings returns the configurations to run: for each model and sampler
-// the run without the prior, then one per positive weight and min-count.
+// the run without the prior, then one per direction, positive weight and
+// min-count.
 func (o *options) settings() []Setting {
 	var out []Setting
 	for _, m := range o.models {
@@ -230,8 +259,10 @@ func (o *options) settings() []Setting {
 				if w == 0 {
 					continue
 				}
-				for _, mc := range o.minCounts {
-					out = append(out, Setting{Model: m, Sampler: s, Weight: w, MinCount: mc})
+				for _, d := range o.directions {
+					for _, mc := range o.minCounts {
+						out = append(out, Setting{Model: m, Sampler: s, Weight: w, MinCount: mc, Direction: d})
+					}
 				}
 			}
 		}
@@ -397,8 +428,8 @@ func runAll(ctx context.Context, o *options, settings []Setting, langs []*Langua
 				} else {
 					out[jb.setting][jb.lang][jb.seed] = res
 					done++
-					fmt.Fprintf(os.Stderr, "aligneval: [%d/%d] %s, %s, seed %d: token F %.3f, P@1 %.2f (%d judged) in %s\n",
-						done, len(jobs), l.Code, s, o.seeds[jb.seed], res.Scores.Token.F, res.Gloss.P1(), res.Gloss.Judged, time.Since(t).Round(time.Second))
+					fmt.Fprintf(os.Stderr, "aligneval: [%d/%d] %s, %s, seed %d: token F %.3f, boundary P %.3f R %.3f, P@1 %.2f (%d judged) in %s\n",
+						done, len(jobs), l.Code, s, o.seeds[jb.seed], res.Scores.Token.F, res.Scores.Boundary.Precision, res.Scores.Boundary.Recall, res.Gloss.P1(), res.Gloss.Judged, time.Since(t).Round(time.Second))
 				}
 				mu.Unlock()
 			}
@@ -426,7 +457,7 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	cfg := s.config(o, seed)
 	var opts segment.RunOptions
 	if !s.baseline() {
-		opts.Factor = translationFactor(l.Tokens, cfg)
+		opts.Factor = translationFactor(l.Tokens, cfg, s.Direction)
 	}
 	res, err := segment.Run(ctx, l.Corpus, cfg, nil, opts)
 	if err != nil {
@@ -444,12 +475,53 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	return Outcome{Scores: sc, Gloss: g}, nil
 }
 
-// translationFactor builds the translation factor exactly as 'juncture
-// learn --translations' does (cmd/juncture/translations.go): the table is
-// re-estimated by 10 EM iterations from the segmentation at the start of
-// every block, with smoothing beta = 1.
-func translationFactor(tokens [][]string, cfg segment.Config) segment.FactorBuilder {
+// translationFactor builds the translation factor of the direction. The
+// forward one is exactly what 'juncture learn --translations' builds
+// (cmd/juncture/translations.go): the table is re-estimated by 10 EM
+// iterations from the segmentation at the start of every block, with
+// smoothing beta = 1. The others are built the same way.
+func translationFactor(tokens [][]string, cfg segment.Config, direction string) segment.FactorBuilder {
+	minCount := cfg.TranslationMinCount
 	return func(words [][]int32) segment.UtteranceFactor {
-		return align.NewFactor(tokens, 1, words, 10, cfg.TranslationMinCount)
+		switch direction {
+		case "reverse", "ratio":
+			return align.NewReverseFactor(tokens, 1, words, 10, minCount, direction == "ratio")
+		case "both":
+			return productFactor{
+				align.NewFactor(tokens, 1, words, 10, minCount),
+				align.NewReverseFactor(tokens, 1, words, 10, minCount, false),
+			}
+		}
+		return align.NewFactor(tokens, 1, words, 10, minCount)
 	}
+}
+
+// productFactor is the product of two factors: its log is their sum.
+type productFactor [2]segment.UtteranceFactor
+
+func (p productFactor) SplitDelta(u int, w, w1, w2 int32) float64 {
+	return p[0].SplitDelta(u, w, w1, w2) + p[1].SplitDelta(u, w, w1, w2)
+}
+
+func (p productFactor) JoinDelta(u int, w1, w2, w int32) float64 {
+	return p[0].JoinDelta(u, w1, w2, w) + p[1].JoinDelta(u, w1, w2, w)
+}
+
+func (p productFactor) Split(u int, w, w1, w2 int32) {
+	p[0].Split(u, w, w1, w2)
+	p[1].Split(u, w, w1, w2)
+}
+
+func (p productFactor) Join(u int, w1, w2, w int32) {
+	p[0].Join(u, w1, w2, w)
+	p[1].Join(u, w1, w2, w)
+}
+
+func (p productFactor) Delta(u int, words []int32) float64 {
+	return p[0].Delta(u, words) + p[1].Delta(u, words)
+}
+
+func (p productFactor) Set(u int, words []int32) {
+	p[0].Set(u, words)
+	p[1].Set(u, words)
 }

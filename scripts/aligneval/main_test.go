@@ -4,9 +4,13 @@ import (
 	"bytes"
 	"context"
 	"math"
+	"math/rand/v2"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
+
+	"github.com/juncture-project/juncture/align"
 )
 
 func TestSummarize(t *testing.T) {
@@ -41,7 +45,14 @@ func TestParseFlags(t *testing.T) {
 		t.Fatal(err)
 	}
 	got := o.settings()
-	if len(got) != 2*(1+2*2) || !got[0].baseline() || got[1] != (Setting{"unigram", "boundary", 0.3, 5}) || got[5].Model != "bigram" {
+	if len(got) != 2*(1+2*2) || !got[0].baseline() || got[1] != (Setting{"unigram", "boundary", 0.3, 5, "forward"}) || got[5].Model != "bigram" {
+		t.Errorf("settings %v", got)
+	}
+	o, err = parseFlags([]string{"-weights", "1", "-min-count", "3", "-direction", "forward,reverse"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := o.settings(); len(got) != 3 || got[2].Direction != "reverse" || got[2].String() != "unigram/boundary, weight 1, min-count 3, reverse" {
 		t.Errorf("settings %v", got)
 	}
 	for _, args := range [][]string{
@@ -50,6 +61,8 @@ func TestParseFlags(t *testing.T) {
 		{"-dicts", "some"},
 		{"-procs", "0"},
 		{"-langs", ""},
+		{"-direction", "sideways"},
+		{"-direction", ""},
 		{"extra"},
 	} {
 		if _, err := parseFlags(args); err == nil {
@@ -105,6 +118,48 @@ func TestRunDeterministic(t *testing.T) {
 			if o.Scores.Utterances != 60 || o.Gloss.Types == 0 {
 				t.Errorf("outcome %+v", o)
 			}
+		}
+	}
+}
+
+// TestProductFactor: the product's changes are the sums of its factors',
+// and its moves keep both factors' running totals equal to a computation
+// from scratch.
+func TestProductFactor(t *testing.T) {
+	translations := [][]string{{"right", "of", "everyone"}, {"everyone", "has"}, {"freedom", "of", "thought"}}
+	words := [][]int32{{0, 1, 2}, {2, 3}, {4, 1, 5}}
+	fw := align.NewFactor(translations, 1, words, 5, 0)
+	rv := align.NewReverseFactor(translations, 1, words, 5, 0, false)
+	p := productFactor{fw, rv}
+	rng := rand.New(rand.NewPCG(1, 2))
+	for range 50 {
+		u := rng.IntN(len(words))
+		ws := words[u]
+		i := rng.IntN(len(ws))
+		w1, w2 := int32(rng.IntN(8)), int32(rng.IntN(8))
+		if d, want := p.SplitDelta(u, ws[i], w1, w2), fw.SplitDelta(u, ws[i], w1, w2)+rv.SplitDelta(u, ws[i], w1, w2); d != want {
+			t.Fatalf("SplitDelta %v, sum of factors %v", d, want)
+		}
+		after := slices.Concat(ws[:i], []int32{w1, w2}, ws[i+1:])
+		if d, want := p.Delta(u, after), fw.Delta(u, after)+rv.Delta(u, after); d != want {
+			t.Fatalf("Delta %v, sum of factors %v", d, want)
+		}
+		p.Split(u, ws[i], w1, w2)
+		words[u] = after
+		if d, want := p.JoinDelta(u, w1, w2, ws[i]), fw.JoinDelta(u, w1, w2, ws[i])+rv.JoinDelta(u, w1, w2, ws[i]); d != want {
+			t.Fatalf("JoinDelta %v, sum of factors %v", d, want)
+		}
+		if len(after) > 4 {
+			p.Join(u, w1, w2, ws[i])
+			words[u] = ws
+		}
+	}
+	for u := range words {
+		if got, want := fw.LogProb(u), fw.Model().LogProb(u, words[u]); math.Abs(got-want) > 1e-9 {
+			t.Errorf("line %d: forward total %v, from scratch %v", u, got, want)
+		}
+		if got, want := rv.LogProb(u), rv.Model().LogProb(u, words[u]); math.Abs(got-want) > 1e-9 {
+			t.Errorf("line %d: reverse total %v, from scratch %v", u, got, want)
 		}
 	}
 }
