@@ -138,7 +138,7 @@ func parseFlags(args []string, stderr io.Writer) (*options, error) {
 	switch *start {
 	case "random":
 	case "gold":
-		*burnin = 0
+		o.burnin = 0
 	default:
 		return nil, fmt.Errorf("-start: want random or gold, got %q", *start)
 	}

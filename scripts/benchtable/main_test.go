@@ -61,6 +61,15 @@ func TestParseFlags(t *testing.T) {
 	if cfg.Alpha0 != 3000 || cfg.Seed != 3 || cfg.Iterations != 10 || cfg.Burnin != 8 || cfg.Sampler != "blocked" {
 		t.Errorf("bigram config %+v", cfg)
 	}
+	// A start from the reference segmentation is sampled at temperature 1:
+	// annealing from temperature 10 would destroy it in the first sweeps.
+	o, err = parseFlags([]string{"-iterations", "10", "-start", "gold"}, &bytes.Buffer{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cfg := o.config(runConfig{"unigram", "blocked", "uniform"}, 1); cfg.Burnin != 0 || o.start != "gold" {
+		t.Errorf("-start gold: burn-in %d, start %q", cfg.Burnin, o.start)
+	}
 	for _, args := range [][]string{
 		{"-json", "-tsv"},
 		{"-scale", "0,4"},
