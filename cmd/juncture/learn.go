@@ -37,7 +37,7 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
-			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them (default: 4/5 of --iterations)"},
+			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations"},
 			&cli.Float64Flag{Name: "converge", Usage: "stop sampling before --iterations once the chains agree: split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other"},
 			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
@@ -72,7 +72,7 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg.Proposal = ctx.String("proposal")
 	cfg.MaxWordLength = ctx.Int("max-word-length")
 	cfg.Iterations = ctx.Int("iterations")
-	cfg.Burnin = cfg.Iterations * 4 / 5
+	cfg.Burnin = segment.DefaultBurnin(cfg.Iterations)
 	if ctx.IsSet("burnin") {
 		cfg.Burnin = ctx.Int("burnin")
 	}
