@@ -37,8 +37,8 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
-			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations"},
-			&cli.Float64Flag{Name: "converge", Usage: "stop sampling before --iterations once the chains agree: split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other"},
+			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations; with --converge at most 50"},
+			&cli.Float64Flag{Name: "converge", Usage: "stop sampling once the chains agree, checked every --block sweeps after burn-in (at least two blocks of samples): split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other; --iterations is then a cap"},
 			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
 			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)"},
@@ -72,12 +72,17 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg.Proposal = ctx.String("proposal")
 	cfg.MaxWordLength = ctx.Int("max-word-length")
 	cfg.Iterations = ctx.Int("iterations")
+	cfg.Converge = ctx.Float64("converge")
 	cfg.Burnin = segment.DefaultBurnin(cfg.Iterations)
+	if cfg.Converge > 0 {
+		// --iterations is a cap then: anneal as a default run does, not
+		// over half of the cap.
+		cfg.Burnin = min(cfg.Burnin, segment.DefaultConfig().Burnin)
+	}
 	if ctx.IsSet("burnin") {
 		cfg.Burnin = ctx.Int("burnin")
 	}
 	cfg.Chains = ctx.Int("chains")
-	cfg.Converge = ctx.Float64("converge")
 	cfg.Block = ctx.Int("block")
 	cfg.Seed = ctx.Uint64("seed")
 	if ctx.Bool("pitman-yor") {

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"compress/gzip"
+	"encoding/json"
 	"math/rand/v2"
 	"os"
 	"os/exec"
@@ -47,6 +49,40 @@ func TestLearnSameSeedSameBytes(t *testing.T) {
 	}
 	if got := bytes.ReplaceAll(a, []byte(" "), nil); !bytes.Equal(got, mustRead(t, in)) {
 		t.Fatal("output without spaces differs from the input")
+	}
+}
+
+// TestLearnConverge: with --converge, --iterations is a cap and the
+// burn-in is that of a default run, so an easy corpus stops early, and the
+// state records it.
+func TestLearnConverge(t *testing.T) {
+	in := testCorpus(t, 80)
+	dir := filepath.Join(t.TempDir(), "state")
+	run(t, nil, "learn", "-q", "--iterations", "1000", "--block", "10", "--converge", "1.5", "--state", dir, in)
+	var settings struct {
+		Config struct {
+			Burnin int `json:"burnin"`
+		} `json:"config"`
+	}
+	if err := json.Unmarshal(mustRead(t, filepath.Join(dir, "settings.json")), &settings); err != nil {
+		t.Fatal(err)
+	}
+	if settings.Config.Burnin != 50 {
+		t.Errorf("burn-in %d with --converge, want 50", settings.Config.Burnin)
+	}
+	zr, err := gzip.NewReader(bytes.NewReader(mustRead(t, filepath.Join(dir, "chain-0.json.gz"))))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var chain struct {
+		Iteration int  `json:"iteration"`
+		Stopped   bool `json:"stopped"`
+	}
+	if err := json.NewDecoder(zr).Decode(&chain); err != nil {
+		t.Fatal(err)
+	}
+	if !chain.Stopped || chain.Iteration >= 1000 || chain.Iteration < 70 {
+		t.Errorf("chain at sweep %d, stopped %v; want a stop between 70 and 1000", chain.Iteration, chain.Stopped)
 	}
 }
 
