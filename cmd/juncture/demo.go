@@ -38,6 +38,9 @@ func demoCommand() *cli.Command {
 
 func runDemo(ctx *cli.Context) error {
 	out := ctx.App.Writer
+	if top := ctx.Int("top"); top < 0 {
+		return fmt.Errorf("--top must be at least 0, got %d", top)
+	}
 	c, err := segment.ReadCorpus(bytes.NewReader(demo.Input()), "demo/input.txt", segment.ReadOptions{})
 	if err != nil {
 		return err

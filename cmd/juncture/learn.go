@@ -34,21 +34,21 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
 			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time), blocked (one utterance at a time, forward filtering and backward sampling), or auto: blocked, except boundary for the bigram model when utterances average more than 12 units (long utterances make bigram lattices expensive)"},
-			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself, or from its unigram level (cheaper sweeps, but many more rejections: slower to mix)"},
+			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself (bigram), or from its unigram level (unigram: cheaper sweeps, but many more rejections, so slower to mix)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations; with --converge at most 50"},
-			&cli.Float64Flag{Name: "converge", Usage: "stop sampling once the chains agree, checked every --block sweeps after burn-in (at least two blocks of samples): split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other; --iterations is then a cap"},
+			&cli.Float64Flag{Name: "converge", Usage: "stop sampling once the chains agree, checked every --block sweeps after burn-in (at least two blocks of samples): split R-hat of their word counts below `RHAT` (e.g. 1.05) and, with several chains, boundary probabilities within RHAT-1 of each other; --iterations is then a cap", DefaultText: "off"},
 			&cli.IntFlag{Name: "chains", Value: d.Chains, Usage: "independent chains, run in parallel and pooled"},
 			&cli.Uint64Flag{Name: "seed", Value: d.Seed, Usage: "random seed; the same input, settings and seed give the same output"},
-			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)"},
-			&cli.Float64Flag{Name: "alpha1", Usage: "fix the bigram concentration (sampled otherwise; starts at 100)"},
-			&cli.BoolFlag{Name: "pitman-yor", Usage: "sample Pitman-Yor discounts for the word levels (default: 0, Dirichlet processes)"},
-			&cli.Float64Flag{Name: "discount0", Usage: "fix the unigram Pitman-Yor discount at this value"},
-			&cli.Float64Flag{Name: "discount1", Usage: "fix the bigram Pitman-Yor discount at this value"},
-			&cli.Float64Flag{Name: "word-end", Usage: "fix the base distribution's word-end probability p# (sampled otherwise; starts at 0.5)"},
+			&cli.Float64Flag{Name: "alpha0", Usage: "fix the unigram concentration (sampled otherwise; starts at 20, bigram 3000)", DefaultText: "sampled"},
+			&cli.Float64Flag{Name: "alpha1", Usage: "fix the bigram concentration (sampled otherwise; starts at 100)", DefaultText: "sampled"},
+			&cli.BoolFlag{Name: "pitman-yor", Usage: "sample Pitman-Yor discounts for the word levels instead of fixing them at 0 (Dirichlet processes)"},
+			&cli.Float64Flag{Name: "discount0", Usage: "fix the unigram Pitman-Yor discount at this value", DefaultText: "0, sampled with --pitman-yor"},
+			&cli.Float64Flag{Name: "discount1", Usage: "fix the bigram Pitman-Yor discount at this value", DefaultText: "0, sampled with --pitman-yor"},
+			&cli.Float64Flag{Name: "word-end", Usage: "fix the base distribution's word-end probability p# (sampled otherwise; starts at 0.5)", DefaultText: "sampled"},
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the segmentation to `FILE` (atomically) instead of standard output"},
-			&cli.StringFlag{Name: "posteriors", Usage: "write every gap's boundary probability to `FILE` as TSV (line, offset, probability...)"},
+			&cli.StringFlag{Name: "posteriors", Usage: "write every gap's boundary probability to `FILE` as TSV (columns line, offset, unit, left, right, probability)"},
 			&cli.StringFlag{Name: "lexicon", Usage: "write the lexicon of the segmentation to `FILE` (TSV: form, count, confidence, glosses from --translations, example lines)"},
 			&cli.StringFlag{Name: "state", Usage: "keep the run's settings, corpus, checkpoints and results in `DIR`"},
 			&cli.BoolFlag{Name: "resume", Usage: "continue the run in --state DIR from its last checkpoint (INPUT and model flags are taken from DIR)"},
@@ -112,6 +112,13 @@ func runLearn(ctx *cli.Context) error {
 		tokens [][]string
 		err    error
 	)
+	inputs := []namedPath{{"--translations", ctx.String("translations")}, {"--units", ctx.String("units")}, {"--stop-words", ctx.String("stop-words")}}
+	if !ctx.Bool("resume") {
+		inputs = append(inputs, namedPath{"INPUT", ctx.Args().First()})
+	}
+	if err := checkOutputs(ctx, inputs); err != nil {
+		return err
+	}
 	if ctx.Bool("resume") {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")

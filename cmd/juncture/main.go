@@ -32,7 +32,7 @@ func main() {
 }
 
 func newApp() *cli.App {
-	return &cli.App{
+	app := &cli.App{
 		Name:  "juncture",
 		Usage: "find the words in unsegmented transcriptions",
 		Description: "juncture proposes word boundaries for phonemic transcripts written without\n" +
@@ -46,8 +46,23 @@ func newApp() *cli.App {
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "cpuprofile", Usage: "write a CPU profile to `FILE` (for go tool pprof)", Hidden: true},
 		},
-		Before: startProfile,
-		After:  stopProfile,
+		Before:       startProfile,
+		After:        stopProfile,
+		OnUsageError: usageError("juncture "),
+	}
+	for _, c := range app.Commands {
+		c.OnUsageError = usageError("juncture " + c.Name + " ")
+	}
+	return app
+}
+
+// usageError returns the handler of a flag that cannot be parsed. It makes
+// the mistake an ordinary error, printed on standard error; by default
+// urfave/cli prints it with the whole help to standard output, which may be
+// redirected into a data file.
+func usageError(command string) cli.OnUsageErrorFunc {
+	return func(_ *cli.Context, err error, _ bool) error {
+		return fmt.Errorf("%w (see '%s--help')", err, command)
 	}
 }
 

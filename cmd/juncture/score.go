@@ -20,7 +20,7 @@ func scoreCommand() *cli.Command {
 			"works. Reports boundary, token and lexicon precision, recall and F, plus\n" +
 			"WindowDiff and Pk, as a table or, with --json, as one JSON object.",
 		Flags: []cli.Flag{
-			&cli.StringFlag{Name: "reference", Aliases: []string{"r"}, Required: true, Usage: "the reference (gold) segmentation `FILE`"},
+			&cli.StringFlag{Name: "reference", Aliases: []string{"r"}, Usage: "the reference (gold) segmentation `FILE` (required)"},
 			&cli.BoolFlag{Name: "json", Usage: "print one JSON object instead of a table"},
 		},
 		Action: runScore,
@@ -28,14 +28,24 @@ func scoreCommand() *cli.Command {
 }
 
 func runScore(ctx *cli.Context) error {
-	if ctx.NArg() != 1 {
-		return fmt.Errorf("want one PREDICTED file (or -), got %d arguments", ctx.NArg())
-	}
-	ref, refLines, refName, err := readSegmentedFile(ctx.String("reference"))
+	predicted, err := oneArgument(ctx, "PREDICTED")
 	if err != nil {
 		return err
 	}
-	pred, predLines, predName, err := readSegmentedFile(ctx.Args().First())
+	// Checked here rather than by urfave/cli, which would print the help
+	// to standard output.
+	reference := ctx.String("reference")
+	if reference == "" {
+		return errors.New("want --reference FILE, the reference segmentation")
+	}
+	if reference == "-" && predicted == "-" {
+		return errors.New("--reference - and PREDICTED -: standard input can be read only once")
+	}
+	ref, refLines, refName, err := readSegmentedFile(reference)
+	if err != nil {
+		return err
+	}
+	pred, predLines, predName, err := readSegmentedFile(predicted)
 	if err != nil {
 		return err
 	}

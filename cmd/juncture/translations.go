@@ -17,8 +17,8 @@ import (
 func translationFlags() []cli.Flag {
 	d := segment.DefaultConfig()
 	return []cli.Flag{
-		&cli.StringFlag{Name: "translations", Usage: "free translations, line-aligned with INPUT, from `FILE`: words that recur with the same translation words are more likely real words"},
-		&cli.Float64Flag{Name: "translation-weight", Value: d.TranslationWeight, Usage: "exponent of the translation factor on segmenting; 0 uses translations for glosses only (on the UDHR corpora, well-mixed runs lost token F with the factor: 0.06 at weight 1, 0.005 at 0.3)"},
+		&cli.StringFlag{Name: "translations", Usage: "free translations, line-aligned with INPUT, from `FILE`: they give the --lexicon its glosses and, with --translation-weight above 0, favour words that recur with the same translation words"},
+		&cli.Float64Flag{Name: "translation-weight", Value: d.TranslationWeight, Usage: "exponent of the translation factor on segmenting; 0 uses translations for glosses only (on the UDHR corpora the factor lowered the unigram model's token F at every weight tried; see README.md)"},
 		&cli.IntFlag{Name: "translation-min-count", Value: d.TranslationMinCount, Usage: "a word's translation associations count only once it has been seen this many times"},
 		&cli.StringFlag{Name: "stop-words", Usage: "translation words to ignore, one per line, from `FILE` (# starts a comment)"},
 		&cli.BoolFlag{Name: "tsv", Usage: "INPUT is tab-separated with a header row holding a transcript and a translation column"},
@@ -54,8 +54,9 @@ func (lc *lineCounter) total() int {
 // readInput reads INPUT (plain transcripts, or --tsv) and, when the run has
 // them, each utterance's translation tokens.
 func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
-	if ctx.NArg() != 1 {
-		return nil, nil, fmt.Errorf("want one INPUT file (or - for standard input), got %d arguments", ctx.NArg())
+	input, err := oneArgument(ctx, "INPUT")
+	if err != nil {
+		return nil, nil, err
 	}
 	opts, err := readOptions(ctx)
 	if err != nil {
@@ -73,7 +74,7 @@ func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
 			return nil, nil, err
 		}
 	}
-	r, name, err := openInput(ctx.Args().First())
+	r, name, err := openInput(input)
 	if err != nil {
 		return nil, nil, err
 	}
