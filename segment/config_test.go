@@ -1,6 +1,7 @@
 package segment_test
 
 import (
+	"math"
 	"strings"
 	"testing"
 
@@ -27,6 +28,9 @@ func TestConfigValidate(t *testing.T) {
 		{func(c *Config) { c.Chains = 0 }, "chains"},
 		{func(c *Config) { c.Discount1 = 1 }, "discounts"},
 		{func(c *Config) { c.Alpha0 = 0 }, "concentrations"},
+		{func(c *Config) { c.Alpha1 = math.Inf(1) }, "concentrations"},
+		{func(c *Config) { c.NgramOrder = -1 }, "n-gram order"},
+		{func(c *Config) { c.TranslationMinCount = -1 }, "translation min-count"},
 		{func(c *Config) { c.WordEnd = 1 }, "word-end"},
 		{func(c *Config) { c.Converge = 0.9 }, "convergence"},
 		{func(c *Config) { c.TranslationWeight = -1 }, "translation weight"},

@@ -3,6 +3,7 @@ package segment
 import (
 	"context"
 	"fmt"
+	"math"
 	"math/rand/v2"
 	"sync"
 )
@@ -109,7 +110,7 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("unknown model %q (want unigram or bigram)", cfg.Model)
 	case cfg.Base != "uniform" && cfg.Base != "ngram":
 		return fmt.Errorf("unknown base %q (want uniform or ngram)", cfg.Base)
-	case cfg.Base == "ngram" && (cfg.NgramOrder < 1 || cfg.NgramOrder > 8):
+	case cfg.NgramOrder < 1 || cfg.NgramOrder > 8: // checked with any base: a bad value is a typo
 		return fmt.Errorf("n-gram order must be 1 to 8, got %d", cfg.NgramOrder)
 	case cfg.Sampler != "boundary" && cfg.Sampler != "blocked" && cfg.Sampler != "auto":
 		return fmt.Errorf("unknown sampler %q (want boundary, blocked or auto)", cfg.Sampler)
@@ -127,8 +128,8 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("block must be at least 1, got %d", cfg.Block)
 	case !(cfg.Discount0 >= 0 && cfg.Discount0 < 1) || !(cfg.Discount1 >= 0 && cfg.Discount1 < 1):
 		return fmt.Errorf("discounts must be in [0,1), got %v and %v", cfg.Discount0, cfg.Discount1)
-	case !(cfg.Alpha0 > 0) || !(cfg.Alpha1 > 0):
-		return fmt.Errorf("concentrations must be positive, got alpha0 %v, alpha1 %v", cfg.Alpha0, cfg.Alpha1)
+	case !(cfg.Alpha0 > 0) || !(cfg.Alpha1 > 0) || math.IsInf(cfg.Alpha0, 1) || math.IsInf(cfg.Alpha1, 1):
+		return fmt.Errorf("concentrations must be positive and finite, got alpha0 %v, alpha1 %v", cfg.Alpha0, cfg.Alpha1)
 	case !(cfg.WordEnd > 0 && cfg.WordEnd < 1):
 		return fmt.Errorf("word-end probability must be in (0,1), got %v", cfg.WordEnd)
 	case !(cfg.Rho > 0):
@@ -137,6 +138,8 @@ func (cfg Config) Validate() error {
 		return fmt.Errorf("convergence threshold must be above 1 (a potential scale reduction), got %v", cfg.Converge)
 	case !(cfg.TranslationWeight >= 0):
 		return fmt.Errorf("translation weight must be at least 0, got %v", cfg.TranslationWeight)
+	case cfg.TranslationMinCount < 0:
+		return fmt.Errorf("translation min-count must be at least 0, got %d", cfg.TranslationMinCount)
 	case !(cfg.InitialBoundary >= 0 && cfg.InitialBoundary <= 1):
 		return fmt.Errorf("initial boundary probability must be in [0,1], got %v", cfg.InitialBoundary)
 	}
