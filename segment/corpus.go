@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"io"
 	"strings"
+	"sync"
+	"sync/atomic"
 	"unicode/utf8"
 
 	"github.com/juncture-project/juncture/segment/textline"
@@ -66,7 +68,8 @@ type Corpus struct {
 
 	keys    []byte // units as little-endian uint16, for map lookups without allocation
 	unitIDs map[string]Unit
-	forms   *spanForms // see IndexSpans
+	forms   atomic.Pointer[spanForms] // see IndexSpans
+	indexMu sync.Mutex                // serialises IndexSpans
 }
 
 // PositionError is an error at a place in a named file: name:line:column.

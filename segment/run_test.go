@@ -80,6 +80,46 @@ func TestRunIndependentOfThreads(t *testing.T) {
 	}
 }
 
+// TestRunConcurrentOnOneCorpus: several runs may learn from one corpus at
+// once (the evaluation scripts do), each giving what it gives alone on a
+// fresh copy of the corpus. Under the race detector this also checks that
+// building the corpus's span index does not race with the other runs.
+func TestRunConcurrentOnOneCorpus(t *testing.T) {
+	shared := syntheticCorpus(t, 60)
+	configs := []Config{runConfig("unigram"), runConfig("bigram"), runConfig("bigram")}
+	configs[1].Sampler, configs[2].Sampler = "blocked", "boundary"
+	want := make([]string, len(configs))
+	for i, cfg := range configs {
+		res, err := Run(context.Background(), syntheticCorpus(t, 60), cfg, nil, RunOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		want[i] = output(t, res)
+	}
+	got := make([]string, len(configs))
+	errs := make([]error, len(configs))
+	var wg sync.WaitGroup
+	for i, cfg := range configs {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			res, err := Run(context.Background(), shared, cfg, nil, RunOptions{})
+			if errs[i] = err; err == nil {
+				got[i] = output(t, res)
+			}
+		}()
+	}
+	wg.Wait()
+	for i := range configs {
+		if errs[i] != nil {
+			t.Fatal(errs[i])
+		}
+		if got[i] != want[i] {
+			t.Errorf("run %d (%s/%s) on the shared corpus differs from the same run alone", i, configs[i].Model, configs[i].Sampler)
+		}
+	}
+}
+
 // TestRunResumeIdentical stops a run after some checkpoints, resumes from
 // the checkpointed states and compares with an uninterrupted run.
 func TestRunResumeIdentical(t *testing.T) {

@@ -16,11 +16,18 @@ type spanForms struct {
 }
 
 // IndexSpans numbers the spans of c of up to max units within each
-// utterance (see spanForms). Word-type tables created afterwards use the
-// index; it is built once, by the first call, and must be built before
-// the corpus is shared between goroutines.
+// utterance (see spanForms). Word-type tables first used afterwards use
+// the index; it is built once, by the first call. Calls may run
+// concurrently (several runs learning from one corpus at once): the
+// others wait for the first, and a table first used while the index is
+// being built does without it, which changes its speed, not its results.
 func (c *Corpus) IndexSpans(max int) {
-	if c.forms != nil || max < 1 {
+	if c.forms.Load() != nil || max < 1 {
+		return
+	}
+	c.indexMu.Lock()
+	defer c.indexMu.Unlock()
+	if c.forms.Load() != nil {
 		return
 	}
 	f := &spanForms{max: max, off: make([]int32, len(c.Units)+1)}
@@ -46,7 +53,7 @@ func (c *Corpus) IndexSpans(max int) {
 		}
 	}
 	f.n = seen.Len()
-	c.forms = f
+	c.forms.Store(f)
 }
 
 // form returns the form of span [start, end), or -1 if the span is not

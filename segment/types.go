@@ -84,7 +84,7 @@ func (t *Types) Lookup(c *Corpus, start, end int) (WordType, bool) {
 func (t *Types) Intern(c *Corpus, start, end int) (WordType, bool) {
 	if t.corpus == nil {
 		t.corpus = c
-		if t.forms = c.forms; t.forms != nil {
+		if t.forms = c.forms.Load(); t.forms != nil {
 			t.formType = make([]int32, t.forms.n)
 		}
 	} else if t.corpus != c {
