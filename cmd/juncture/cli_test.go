@@ -51,6 +51,7 @@ func TestCommandLineMistakes(t *testing.T) {
 		{[]string{"score", "-r", "gold.txt", "gold.txt", "--json"}, `flags go before PREDICTED: "--json" comes after it`},
 		{[]string{"score", "-r", "-", "-"}, "standard input can be read only once"},
 		{[]string{"demo", "-q", "--top", "-1"}, "--top must be at least 0, got -1"},
+		{[]string{"learn", "-q", "--state", "st", "--resume", "--transcript-column", "ipa"}, "--transcript-column cannot be changed on --resume"},
 	} {
 		stdout, stderr, code := runStatus(t, dir, tc.args...)
 		if code != 1 || stdout != "" || !strings.Contains(stderr, tc.want) || strings.Contains(stderr, "panic") {

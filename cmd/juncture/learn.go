@@ -123,7 +123,7 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "proposal", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv"} {
+		for _, f := range []string{"model", "base", "ngram-order", "sampler", "proposal", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv", "transcript-column", "translation-column"} {
 			if ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
