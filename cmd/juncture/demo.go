@@ -4,8 +4,8 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
-	"text/tabwriter"
 
 	"github.com/juncture-project/juncture/align"
 	"github.com/juncture-project/juncture/data/demo"
@@ -103,9 +103,13 @@ func runDemo(ctx *cli.Context) error {
 		return err
 	}
 
-	fmt.Fprintln(out, "\nFirst utterances, as segmented (gold below):")
+	fmt.Fprintln(out, "\nFirst utterances, as segmented (gold on the right):")
+	var rows [][]string
 	for u := 0; u < min(5, c.Len()); u++ {
-		fmt.Fprintf(out, "  %-40s  %s\n", strings.Join(pred[u], " "), strings.Join(gold[u], " "))
+		rows = append(rows, []string{strings.Join(pred[u], " "), strings.Join(gold[u], " ")})
+	}
+	if err := writeColumns(out, "  ", 4, rows); err != nil {
+		return err
 	}
 
 	entries := demo.Entries()
@@ -120,8 +124,7 @@ func runDemo(ctx *cli.Context) error {
 }
 
 func writeDemoLexicon(w io.Writer, lex []lexicon.Entry, gloss map[string]string) error {
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  word\tcount\tconfidence\tglosses learned from the translations\tin the invented lexicon")
+	rows := [][]string{{"word", "count", "confidence", "glosses learned from the translations", "in the invented lexicon"}}
 	for _, e := range lex {
 		known := "no"
 		if g, ok := gloss[e.Form]; ok {
@@ -134,7 +137,7 @@ func writeDemoLexicon(w io.Writer, lex []lexicon.Entry, gloss map[string]string)
 		if len(learned) == 0 {
 			learned = []string{"-"}
 		}
-		fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%s\t%s\n", e.Form, e.Count, e.Confidence, strings.Join(learned, ", "), known)
+		rows = append(rows, []string{e.Form, strconv.Itoa(e.Count), strconv.FormatFloat(e.Confidence, 'f', 2, 64), strings.Join(learned, ", "), known})
 	}
-	return tw.Flush()
+	return writeColumns(w, "  ", 2, rows)
 }
