@@ -58,9 +58,14 @@ type BlockedSampler struct {
 	// utterance start.
 	p0, p0inv      []float64
 	uniInv, newInv []float64
-	startInv       float64
-	invc           []float64 // bigram: 1/c_t, the scale factors by position
-	newB           []bool
+	// live[idx] says what a span can take part in at the bigram level:
+	// liveWord if its word has unigram-level customers, liveContext if
+	// the context it makes has bigram-level customers. A (context, word)
+	// seat with customers needs both, so the lattice looks up no other.
+	live     []uint8
+	startInv float64
+	invc     []float64 // bigram: 1/c_t, the scale factors by position
+	newB     []bool
 }
 
 // NewBlockedSampler seats s in m and returns a blocked sampler over both.
@@ -287,6 +292,10 @@ func (g *BlockedSampler) growScratch(L, K int) []bool {
 		g.uniInv = grow(g.uniInv, n)
 		g.newInv = grow(g.newInv, n)
 		g.invc = grow(g.invc, L+1)
+		if cap(g.live) < n {
+			g.live = make([]uint8, n, 2*n)
+		}
+		g.live = g.live[:n]
 	}
 	if cap(g.ids) < n {
 		g.ids = make([]WordType, n, 2*n)

@@ -43,7 +43,7 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 					ratio *= invc[t-k+1]
 				}
 				if spanOK(c, us, ue, us+t-k, us+t) {
-					_, _, x = up.prob(m, us+t-k, us+t)
+					_, _, x, _ = up.prob(m, us+t-k, us+t)
 					raw += x * ratio
 				}
 			}
@@ -134,19 +134,25 @@ func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64)
 	return u
 }
 
+// Flags of BlockedSampler.live.
+const (
+	liveWord    uint8 = 1
+	liveContext uint8 = 2
+)
+
 // prob returns the type of span [a, b) (-2 if not interned), its
-// unigram-level predictive probability times the scale, and that to the
-// power inv.
-func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64) {
+// unigram-level predictive probability times the scale, that to the power
+// inv, and whether the type has unigram-level customers.
+func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64, seated bool) {
 	k := b - a
 	w = m.lookupSpan(a, b)
 	if w >= 0 {
 		if ds := u.r.seating(0, w, false); ds != nil && ds.customers > 0 {
 			x = (u.p0[k] + float64(ds.customers) - u.d*float64(ds.tables)) * u.norm
-			return w, x, powInv(x, u.inv)
+			return w, x, powInv(x, u.inv), true
 		}
 	}
-	return w, u.p0[k] * u.norm, u.p0inv[k]
+	return w, u.p0[k] * u.norm, u.p0inv[k], false
 }
 
 // powInv returns x^inv, skipping the work at temperature 1.
@@ -170,14 +176,23 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 	W := K + 1
 	up := g.newUniLinear(ub, K, 1, inv)
 	ids, uni, term, fwd := g.ids, g.uni, g.term, g.fwd
-	uniInv, newInv := g.uniInv, g.newInv
+	uniInv, newInv, live := g.uniInv, g.newInv, g.live
 	for t := 1; t <= L; t++ {
 		for k := 1; k < W; k++ {
 			idx := t*W + k
-			ids[idx], uni[idx], uniInv[idx], newInv[idx] = -2, 0, 0, 1
+			ids[idx], uni[idx], uniInv[idx], newInv[idx], live[idx] = -2, 0, 0, 1, 0
 			if k <= t && spanOK(c, us, ue, us+t-k, us+t) {
-				ids[idx], uni[idx], uniInv[idx] = up.prob(m, us+t-k, us+t)
+				var seated bool
+				ids[idx], uni[idx], uniInv[idx], seated = up.prob(m, us+t-k, us+t)
 				newInv[idx] = g.newTableInv(ids[idx], inv)
+				if seated {
+					live[idx] |= liveWord
+				}
+				if w := ids[idx]; w != -2 {
+					if cc, _ := m.bi.totals(contextOf(w)); cc > 0 {
+						live[idx] |= liveContext
+					}
+				}
 			}
 		}
 	}
@@ -284,11 +299,12 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 // span.
 func (g *BlockedSampler) bigramTermLinear(t, k, j, W int, inv float64) float64 {
 	idx := t*W + k
-	prev, ctxInv := End, g.startInv
+	prev, ctxInv, ctxLive := End, g.startInv, true
 	if j > 0 {
-		prev, ctxInv = g.ids[(t-k)*W+j], g.newInv[(t-k)*W+j]
+		p := (t-k)*W + j
+		prev, ctxInv, ctxLive = g.ids[p], g.newInv[p], g.live[p]&liveContext != 0
 	}
-	if prev != -2 {
+	if ctxLive && g.live[idx]&liveWord != 0 {
 		if w := g.ids[idx]; w >= 0 {
 			r := g.Model.bi
 			ctx := contextOf(prev)
