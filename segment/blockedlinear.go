@@ -182,21 +182,19 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 			idx := t*W + k
 			ids[idx], uni[idx], uniInv[idx], newInv[idx], live[idx] = -2, 0, 0, 1, 0
 			if k <= t && spanOK(c, us, ue, us+t-k, us+t) {
-				var seated bool
+				var seated, ctxSeated bool
 				ids[idx], uni[idx], uniInv[idx], seated = up.prob(m, us+t-k, us+t)
-				newInv[idx] = g.newTableInv(ids[idx], inv)
+				newInv[idx], ctxSeated = g.newTableInv(ids[idx], inv)
 				if seated {
 					live[idx] |= liveWord
 				}
-				if w := ids[idx]; w != -2 {
-					if cc, _ := m.bi.totals(contextOf(w)); cc > 0 {
-						live[idx] |= liveContext
-					}
+				if ctxSeated {
+					live[idx] |= liveContext
 				}
 			}
 		}
 	}
-	g.startInv = g.newTableInv(End, inv)
+	g.startInv, _ = g.newTableInv(End, inv)
 	invc := g.invc[:1] // invc[t] = 1/c_t
 	invc[0] = 1
 	logZ := 0.0
@@ -318,18 +316,19 @@ func (g *BlockedSampler) bigramTermLinear(t, k, j, W int, inv float64) float64 {
 
 // newTableInv returns ((a + d T_ctx) / (C_ctx + a))^inv for the context of
 // word prev, the bigram level's weight on its parent there: 1 for a
-// context without customers, or a word never interned (-2).
-func (g *BlockedSampler) newTableInv(prev WordType, inv float64) float64 {
+// context without customers, or a word never interned (-2). seated says
+// whether the context has customers.
+func (g *BlockedSampler) newTableInv(prev WordType, inv float64) (x float64, seated bool) {
 	if prev == -2 {
-		return 1
+		return 1, false
 	}
 	r := g.Model.bi
 	c, tt := r.totals(contextOf(prev))
 	if c == 0 {
-		return 1
+		return 1, false
 	}
 	d, a := r.params.Discount, r.params.Concentration
-	return powInv((a+d*tt)/(c+a), inv)
+	return powInv((a+d*tt)/(c+a), inv), true
 }
 
 // endTermLinear is endTerm as a probability, given P_uni(End).
