@@ -60,13 +60,14 @@ type Reverse struct {
 	minOccurrences int
 	tokens         *Model // the interned translations; its table is unused
 
-	pair  map[uint64]float64 // n(w,e) by pairKey(w, e), e = Null included
-	total []float64          // total[e+1] = n(e); total[0] = n(NULL)
-	count []int32            // count[w]: tokens of w in utterances with a translation
-	n     float64            // N, the number of such word tokens
-	rare  float64            // p_rare
-	next  map[uint64]float64
-	nextT []float64
+	pair    map[uint64]float64 // n(w,e) by pairKey(w, e), e = Null included
+	total   []float64          // total[e+1] = n(e); total[0] = n(NULL)
+	count   []int32            // count[w]: tokens of w in utterances with a translation
+	n       float64            // N, the number of such word tokens
+	rare    float64            // p_rare
+	next    map[uint64]float64
+	nextT   []float64
+	scratch []float64 // one word's t(w|e) over its utterance, in step
 }
 
 // NewReverse returns a reverse model of the given translations, one token
@@ -158,17 +159,26 @@ func (r *Reverse) step(words [][]int32) {
 			continue
 		}
 		for _, w := range ws {
-			s := r.prob(w, Null, false)
-			for _, e := range tokens {
-				s += r.prob(w, e, false)
+			// ps[0] is t(w|NULL), ps[j+1] t(w|e_j): each looked up once.
+			ps := r.scratch[:0]
+			s := 0.0
+			for j := -1; j < len(tokens); j++ {
+				e := Null
+				if j >= 0 {
+					e = tokens[j]
+				}
+				p := r.prob(w, e, false)
+				ps = append(ps, p)
+				s += p
 			}
-			c := r.prob(w, Null, false) / s
-			r.next[pairKey(w, Null)] += c
-			r.nextT[0] += c
-			for _, e := range tokens {
-				c := r.prob(w, e, false) / s
-				r.next[pairKey(w, e)] += c
-				r.nextT[e+1] += c
+			r.scratch = ps
+			for j, p := range ps {
+				e := Null
+				if j > 0 {
+					e = tokens[j-1]
+				}
+				r.next[pairKey(w, e)] += p / s
+				r.nextT[e+1] += p / s
 			}
 		}
 	}
