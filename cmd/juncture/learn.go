@@ -103,6 +103,10 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	return cfg, cfg.Validate()
 }
 
+// resumeFlags are the learn flags that --resume accepts: what to write
+// and where, not how to learn.
+var resumeFlags = map[string]bool{"state": true, "resume": true, "out": true, "posteriors": true, "lexicon": true, "quiet": true}
+
 func runLearn(ctx *cli.Context) error {
 	dir := ctx.String("state")
 	var (
@@ -123,8 +127,12 @@ func runLearn(ctx *cli.Context) error {
 		if dir == "" {
 			return errors.New("--resume needs --state DIR")
 		}
-		for _, f := range []string{"model", "base", "ngram-order", "sampler", "proposal", "max-word-length", "iterations", "burnin", "chains", "converge", "pitman-yor", "seed", "alpha0", "alpha1", "discount0", "discount1", "word-end", "block", "units", "ignore", "spaces-are-boundaries", "translations", "translation-weight", "translation-min-count", "stop-words", "tsv", "transcript-column", "translation-column"} {
-			if ctx.IsSet(f) {
+		// Every setting comes from DIR; only where the results go may be
+		// given again. Deriving the list from the flags keeps a new flag
+		// from being silently ignored on --resume.
+		for _, fl := range ctx.Command.Flags {
+			f := fl.Names()[0]
+			if !resumeFlags[f] && ctx.IsSet(f) {
 				return fmt.Errorf("--%s cannot be changed on --resume: the settings come from %s", f, dir)
 			}
 		}
