@@ -99,15 +99,24 @@ func (g *BlockedSampler) Sweep(temperature float64, rng *rand.Rand) {
 //
 // with N tokens, E = U-1 ends and C = N-E continues among the others.
 func (m *Words) logUtteranceEnds(n int) float64 {
-	if m.Order != 1 || n == 0 {
+	if m.Order != 1 {
 		return 0
 	}
-	h := m.Rho / 2
-	N := float64(m.tokens)
-	E := float64(m.utterances - 1)
+	return logEndsGiven(n, m.tokens, m.utterances, m.Rho)
+}
+
+// logEndsGiven is the Beta-Bernoulli term above for an utterance of n
+// tokens given the others' tokens of a corpus of the given size.
+func logEndsGiven(n, tokens, utterances int, rho float64) float64 {
+	if n == 0 {
+		return 0
+	}
+	h := rho / 2
+	N := float64(tokens)
+	E := float64(utterances - 1)
 	C := N - E
 	k := float64(n - 1)
-	return lgamma(C+k+h) - lgamma(C+h) + math.Log(E+h) - (lgamma(N+k+1+m.Rho) - lgamma(N+m.Rho))
+	return lgamma(C+k+h) - lgamma(C+h) + math.Log(E+h) - (lgamma(N+k+1+rho) - lgamma(N+rho))
 }
 
 // lookupSpan returns the type of span [a, b) if it is interned, else -2.

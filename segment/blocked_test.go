@@ -9,14 +9,6 @@ import (
 	"github.com/juncture-project/juncture/segment/exact"
 )
 
-type blockedChain struct {
-	g   *BlockedSampler
-	rng *rand.Rand
-}
-
-func (c *blockedChain) Step()                  { c.g.Sweep(1, c.rng) }
-func (c *blockedChain) Current() *Segmentation { return c.g.Seg }
-
 // TestBlockedExactPosterior runs the blocked sampler through the exact
 // posterior harness for both orders, with and without discounts, with and
 // without a word-length limit (the limit truncates the model: the exact
@@ -46,17 +38,7 @@ func TestBlockedExactPosterior(t *testing.T) {
 			}
 			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
-			post := exact.Posterior(c, func(s *Segmentation) float64 {
-				if tc.maxLen > 0 && longestWord(s) > tc.maxLen {
-					return -1e300
-				}
-				return m.ExactLogJoint(s)
-			})
-			for k, p := range post {
-				if p < 1e-200 {
-					delete(post, k)
-				}
-			}
+			post := truncatedPosterior(c, tc.maxLen, m.ExactLogJoint)
 			rng := rand.New(rand.NewPCG(uint64(i), 11))
 			seg := RandomSegmentation(c, 1, rng) // every gap a boundary: within any limit
 			g := NewBlockedSampler(seg, m, tc.maxLen, rng)
@@ -68,7 +50,7 @@ func TestBlockedExactPosterior(t *testing.T) {
 			if tc.order == 2 {
 				thin = 25
 			}
-			counts := exact.Sample(&blockedChain{g, rng}, 100, thin, 20000)
+			counts := exact.Sample(&sweepChain{g, seg, rng}, 100, thin, 20000)
 			r := exact.ChiSquare(post, counts)
 			if r.P < 1e-3 {
 				t.Errorf("sampled segmentations differ from the exact posterior: %v", r)

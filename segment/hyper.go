@@ -24,6 +24,8 @@ const (
 // Fixed says which hyperparameters are not sampled.
 type Fixed struct {
 	Alpha0, Alpha1, Discount0, Discount1, WordEnd bool
+	// GroupEnd fixes the collocation model's g.
+	GroupEnd bool `json:",omitempty"`
 }
 
 // seatingStats are the sufficient statistics of a level's seating for its

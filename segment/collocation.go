@@ -1,0 +1,381 @@
+package segment
+
+import (
+	"encoding/binary"
+	"fmt"
+	"math"
+	"math/rand/v2"
+
+	"gonum.org/v1/gonum/stat/distuv"
+)
+
+// MaxCollocationLength is the most units a collocation may span. It keeps
+// the proposal's products of word probabilities far from underflow; longer
+// collocations are never proposed, so the sampler is exact for the model
+// truncated to shorter ones.
+const MaxCollocationLength = 64
+
+// Collocations is a two-level word model: an utterance is a sequence of
+// collocations, words that recur together ("what's that", "do you"), drawn
+// from a Pitman-Yor process over word sequences; a collocation's words come
+// from a Pitman-Yor process over words whose base is P0. The collocation
+// level's base draws k words, k with probability g(1-g)^(k-1), each from
+// the word level, as the collocation adaptor grammar of Johnson (2008) and
+// Johnson & Goldwater (2009) does. Words that keep company thus need not be
+// fused into one word to be explained together, which is what pushes the
+// unigram model to under-segment, and need not be split into pieces that
+// predict each other, which is what the bigram model does instead.
+//
+// A collocation dish is a unit string together with its analysis into
+// words: the same string with two analyses is two dishes. Utterance ends
+// work as in the unigram model, per collocation: each collocation ends its
+// utterance with a probability that has a Beta(Rho/2, Rho/2) prior,
+// integrated out. Seating is tracked exactly (Chinese restaurant
+// franchise, table sizes as histograms).
+type Collocations struct {
+	Word     PitmanYor // the word level's discount and concentration
+	Group    PitmanYor // the collocation level's
+	Base     UniformBase
+	GroupEnd float64 // g: a collocation's number of words is geometric
+	Rho      float64
+
+	Corpus *Corpus
+	Types  *Types // word types
+	// Strings interns collocations' unit strings, so that a span's
+	// analyses are found without building a key.
+	Strings *Types
+
+	words, groups *restaurants
+	tokens        int // collocation tokens
+	utterances    int
+
+	// Collocation dishes: dishString[d] is the string type of dish d and
+	// its words are dishWords[dishOff[d]:dishOff[d+1]]; analyses[s] lists
+	// the dishes of string type s; dishIDs maps a key (string type, word
+	// lengths) to its dish.
+	dishString []WordType
+	dishOff    []int32
+	dishWords  []WordType
+	analyses   [][]WordType
+	dishKeys   []string
+	dishIDs    map[string]WordType
+	key        []byte
+}
+
+// NewCollocations returns an empty collocation model over c's words.
+func NewCollocations(c *Corpus, word, group PitmanYor, base UniformBase, groupEnd float64) *Collocations {
+	m := &Collocations{Word: word, Group: group, Base: base, GroupEnd: groupEnd, Rho: 2,
+		Corpus: c, Types: NewTypes(), Strings: NewTypes(), utterances: c.Len(),
+		dishOff: []int32{0}, dishIDs: map[string]WordType{}}
+	m.words = newRestaurants(&m.Word)
+	m.groups = newRestaurants(&m.Group)
+	return m
+}
+
+// internWord returns the word type of span [a, b).
+func (m *Collocations) internWord(a, b int) WordType {
+	id, isNew := m.Types.Intern(m.Corpus, a, b)
+	if isNew {
+		m.Types.LogBase[id] = m.Base.LogProb(m.Corpus, a, b)
+	}
+	return id
+}
+
+// internDish returns the collocation dish of the span [a, ends[last]) whose
+// words end at ends (ascending, the last one the collocation's end).
+func (m *Collocations) internDish(a int, ends []int) WordType {
+	b := ends[len(ends)-1]
+	s, isNew := m.Strings.Intern(m.Corpus, a, b)
+	if isNew {
+		m.analyses = append(m.analyses, nil)
+	}
+	m.key = binary.LittleEndian.AppendUint32(m.key[:0], uint32(s))
+	prev := a
+	for _, e := range ends {
+		m.key = binary.AppendUvarint(m.key, uint64(e-prev))
+		prev = e
+	}
+	if d, ok := m.dishIDs[string(m.key)]; ok {
+		return d
+	}
+	d := WordType(len(m.dishString))
+	k := string(m.key)
+	m.dishIDs[k] = d
+	m.dishKeys = append(m.dishKeys, k)
+	m.dishString = append(m.dishString, s)
+	prev = a
+	for _, e := range ends {
+		m.dishWords = append(m.dishWords, m.internWord(prev, e))
+		prev = e
+	}
+	m.dishOff = append(m.dishOff, int32(len(m.dishWords)))
+	m.analyses[s] = append(m.analyses[s], d)
+	return d
+}
+
+// dishWordsOf returns the words of dish d, in order.
+func (m *Collocations) dishWordsOf(d WordType) []WordType {
+	return m.dishWords[m.dishOff[d]:m.dishOff[d+1]]
+}
+
+// collocationMarks records the sizes of everything a rejected proposal may
+// have grown, for forget.
+type collocationMarks struct{ types, strings, dishes, wordSeats, groupSeats int }
+
+func (m *Collocations) mark() collocationMarks {
+	return collocationMarks{m.Types.Len(), m.Strings.Len(), len(m.dishString), len(m.words.seats), len(m.groups.seats)}
+}
+
+// forget drops the types, dishes and seats created since mk, after a
+// rejected proposal has been undone.
+func (m *Collocations) forget(mk collocationMarks) {
+	for d := len(m.dishString) - 1; d >= mk.dishes; d-- {
+		s := m.dishString[d]
+		delete(m.dishIDs, m.dishKeys[d])
+		if int(s) < mk.strings {
+			a := m.analyses[s]
+			m.analyses[s] = a[:len(a)-1] // dishes are appended in order
+		}
+	}
+	m.dishString = m.dishString[:mk.dishes]
+	m.dishKeys = m.dishKeys[:mk.dishes]
+	m.dishOff = m.dishOff[:mk.dishes+1]
+	m.dishWords = m.dishWords[:m.dishOff[mk.dishes]]
+	m.analyses = m.analyses[:mk.strings]
+	m.Strings.Truncate(mk.strings)
+	m.Types.Truncate(mk.types)
+	m.words.dropSeats(mk.wordSeats)
+	m.groups.dropSeats(mk.groupSeats)
+}
+
+// wordProb returns the word level's predictive probability of w.
+func (m *Collocations) wordProb(w WordType) float64 {
+	return m.words.predictive(0, w, math.Exp(m.Types.LogBase[w]))
+}
+
+// logLengthTerm returns log g(1-g)^(k-1), the base's term for k words.
+func (m *Collocations) logLengthTerm(k int) float64 {
+	return math.Log(m.GroupEnd) + float64(k-1)*math.Log1p(-m.GroupEnd)
+}
+
+// logGroupBase returns log of the collocation level's base probability of
+// dish d given the word level's current seating: the length term times
+// each word's predictive probability.
+func (m *Collocations) logGroupBase(d WordType) float64 {
+	ws := m.dishWordsOf(d)
+	lp := m.logLengthTerm(len(ws))
+	p := 1.0
+	for _, w := range ws {
+		p *= m.wordProb(w)
+	}
+	return lp + math.Log(p)
+}
+
+// add seats one collocation token of dish d and returns its log
+// predictive probability just before it was added; if it opened a table,
+// times the ratio of its words' sequential probabilities (each read just
+// before it was seated) to the base probability the level used, which
+// keeps a sampler's product of sequential terms the exact joint of
+// segmentation and seating (the same correction as Words.addBase).
+func (m *Collocations) add(d WordType, rng *rand.Rand, j *journal) float64 {
+	m.tokens++
+	lb := m.logGroupBase(d)
+	p, opened := m.groups.addCustomer(0, d, math.Exp(lb), rng, j)
+	lp := math.Log(p)
+	if opened {
+		lp += m.addWords(d, rng, j) - lb
+	}
+	return lp
+}
+
+// remove takes away one collocation token of dish d and returns the value
+// add would return for the same token and seating.
+func (m *Collocations) remove(d WordType, rng *rand.Rand, j *journal) float64 {
+	m.tokens--
+	ds, closed := m.groups.removeCustomer(0, d, rng, j)
+	seq := 0.0
+	if closed {
+		seq = m.removeWords(d, rng, j)
+	}
+	lb := m.logGroupBase(d)
+	lp := math.Log(m.groups.predictiveAt(0, ds, math.Exp(lb)))
+	if closed {
+		lp += seq - lb
+	}
+	return lp
+}
+
+// removeWords takes d's words out of the word level, last first, and
+// returns the log of their sequential probabilities read as they leave
+// (each just after it left) times the length term.
+func (m *Collocations) removeWords(d WordType, rng *rand.Rand, j *journal) float64 {
+	ws := m.dishWordsOf(d)
+	seq := m.logLengthTerm(len(ws))
+	for k := len(ws) - 1; k >= 0; k-- {
+		w := ws[k]
+		wds, _ := m.words.removeCustomer(0, w, rng, j)
+		seq += math.Log(m.words.predictiveAt(0, wds, math.Exp(m.Types.LogBase[w])))
+	}
+	return seq
+}
+
+// addWords seats d's words at the word level, first first, and returns
+// the log of their sequential probabilities times the length term.
+func (m *Collocations) addWords(d WordType, rng *rand.Rand, j *journal) float64 {
+	ws := m.dishWordsOf(d)
+	seq := m.logLengthTerm(len(ws))
+	for _, w := range ws {
+		pw, _ := m.words.addCustomer(0, w, math.Exp(m.Types.LogBase[w]), rng, j)
+		seq += math.Log(pw)
+	}
+	return seq
+}
+
+// logEnds returns the log Beta-Bernoulli probability of the utterance-end
+// decisions of n collocation tokens in the corpus's utterances.
+func (m *Collocations) logEnds(n int) float64 {
+	h := m.Rho / 2
+	U := float64(m.utterances)
+	return lbeta(U+h, float64(n)-U+h) - lbeta(h, h)
+}
+
+// logUtteranceEnds returns the log probability of one utterance's n
+// end decisions given the other utterances' collocations (the model's
+// current tokens), as Words.logUtteranceEnds does for words.
+func (m *Collocations) logUtteranceEnds(n int) float64 {
+	return logEndsGiven(n, m.tokens, m.utterances, m.Rho)
+}
+
+// groupsOf calls f with the span and word ends of every collocation of
+// utterance u in s, in order. groups[i] marks a collocation starting at
+// unit i; every utterance start is one, and a collocation start is always
+// a word boundary.
+func groupsOf(s *Segmentation, groups []bool, u int, ends []int, f func(a int, ends []int)) []int {
+	start, end := s.Corpus.Utterance(u)
+	a := start
+	ends = ends[:0]
+	for i := start + 1; i <= end; i++ {
+		if i == end || s.Boundary[i] {
+			ends = append(ends, i)
+		}
+		if i == end || groups[i] {
+			f(a, ends)
+			a, ends = i, ends[:0]
+		}
+	}
+	return ends
+}
+
+// AddSegmentation seats every collocation of s grouped by groups, in
+// corpus order. m must be empty.
+func (m *Collocations) AddSegmentation(s *Segmentation, groups []bool, rng *rand.Rand) {
+	var ends []int
+	for u := 0; u < m.Corpus.Len(); u++ {
+		ends = groupsOf(s, groups, u, ends, func(a int, ends []int) {
+			m.add(m.internDish(a, ends), rng, nil)
+		})
+	}
+}
+
+// LogJoint returns the log probability of the segmentation, grouping and
+// seating: both levels' seating probabilities, the length term and words'
+// draws of every collocation table, the base probability of every word
+// table, and the utterance-end term.
+func (m *Collocations) LogJoint() float64 {
+	lp := m.groups.logSeatingProb(m.Group.Discount, m.Group.Concentration)
+	lp += m.words.logSeatingProb(m.Word.Discount, m.Word.Concentration)
+	for i, d := range m.groups.dishes {
+		if t := m.groups.seats[i].tables; t > 0 {
+			lp += float64(t) * m.logLengthTerm(len(m.dishWordsOf(d)))
+		}
+	}
+	for i, w := range m.words.dishes {
+		if t := m.words.seats[i].tables; t > 0 {
+			lp += float64(t) * m.Types.LogBase[w]
+		}
+	}
+	return lp + m.logEnds(m.tokens)
+}
+
+// Tokens returns the number of word tokens.
+func (m *Collocations) Tokens() int {
+	n := 0
+	for i, d := range m.groups.dishes {
+		n += int(m.groups.seats[i].customers) * len(m.dishWordsOf(d))
+	}
+	return n
+}
+
+// SampleHyperparameters resamples every hyperparameter not marked fixed:
+// both levels' discounts and concentrations (Fixed.Discount0 and Alpha0
+// for the word level, Discount1 and Alpha1 for the collocation level), p#
+// and g. g is conjugate like p#: every collocation table of k words
+// contributes g(1-g)^(k-1), so under a Beta(1,1) prior g | seating ~
+// Beta(1 + T, 1 + sum (k-1)) over the T collocation tables.
+func (m *Collocations) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
+	sampleLevel(m.words, &m.Word, fixed.Discount0, fixed.Alpha0, rng)
+	sampleLevel(m.groups, &m.Group, fixed.Discount1, fixed.Alpha1, rng)
+	if !fixed.WordEnd {
+		tables, extra := 0.0, 0.0
+		for i, w := range m.words.dishes {
+			if t := float64(m.words.seats[i].tables); t > 0 {
+				tables += t
+				extra += t * float64(m.Types.Length[w]-1)
+			}
+		}
+		m.Base.WordEnd = betaDraw(1+tables, 1+extra, rng)
+		for t := range m.Types.Length {
+			s := int(m.Types.First[t])
+			m.Types.LogBase[t] = m.Base.LogProb(m.Corpus, s, s+int(m.Types.Length[t]))
+		}
+	}
+	if !fixed.GroupEnd {
+		tables, extra := 0.0, 0.0
+		for i, d := range m.groups.dishes {
+			if t := float64(m.groups.seats[i].tables); t > 0 {
+				tables += t
+				extra += t * float64(len(m.dishWordsOf(d))-1)
+			}
+		}
+		m.GroupEnd = betaDraw(1+tables, 1+extra, rng)
+	}
+}
+
+// Check verifies the seating's invariants: each level's histograms agree
+// with its totals and the word level's customers are exactly the words of
+// the collocation level's tables. Tests call it after mutations.
+func (m *Collocations) Check() error {
+	if err := m.groups.check(); err != nil {
+		return fmt.Errorf("collocation level: %w", err)
+	}
+	if err := m.words.check(); err != nil {
+		return fmt.Errorf("word level: %w", err)
+	}
+	want := map[uint64]int32{}
+	m.groups.forEach(func(_ int32, d WordType, ds *dishSeating) {
+		for _, w := range m.dishWordsOf(d) {
+			want[seatKey(0, w)] += ds.tables
+		}
+	})
+	if err := m.words.checkCustomers(want); err != nil {
+		return fmt.Errorf("word level against the collocation tables: %w", err)
+	}
+	if got := int(m.groups.customers0()); got != m.tokens {
+		return fmt.Errorf("%d collocation customers, token count %d", got, m.tokens)
+	}
+	return nil
+}
+
+// customers0 returns the number of customers of context 0.
+func (r *restaurants) customers0() int32 {
+	if len(r.customers) == 0 {
+		return 0
+	}
+	return r.customers[0]
+}
+
+// betaDraw returns a Beta(a, b) draw from rng, kept inside (0, 1).
+func betaDraw(a, b float64, rng *rand.Rand) float64 {
+	x := distuv.Beta{Alpha: a, Beta: b, Src: rng}.Rand()
+	return math.Min(math.Max(x, 1e-6), 1-1e-6)
+}

@@ -1,0 +1,589 @@
+package segment
+
+import (
+	"math"
+	"math/rand/v2"
+)
+
+// CollocationSampler samples segmentations and their grouping into
+// collocations under a Collocations model, with two moves per sweep:
+//
+//   - blocked resampling of one utterance at a time, as BlockedSampler
+//     does for words: the utterance's collocations are removed, a grouping
+//     and the analysis of every collocation are drawn by forward filtering
+//     over collocation ends and backward sampling, a new collocation's
+//     analysis from an inner lattice over its words, all under the
+//     predictive probabilities of the rest of the corpus; a
+//     Metropolis-Hastings test corrects for repeats within the utterance;
+//   - relabelling of every collocation table: the table's words are
+//     removed, a new analysis of its string is drawn from the word level
+//     and accepted by a Metropolis-Hastings test, and the table's tokens
+//     all take it. Without this move a table keeps the analysis it opened
+//     with for as long as it has customers, and the sampler hardly mixes
+//     (Johnson & Goldwater 2009, table label resampling).
+//
+// Relabelling is skipped on corpora with locks, whose tokens of one string
+// may allow different analyses.
+type CollocationSampler struct {
+	Seg           *Segmentation
+	Groups        []bool // Groups[i]: a collocation starts at unit i
+	Model         *Collocations
+	MaxWordLength int
+	// SkipRelabel turns the relabelling move off, to measure what it buys.
+	SkipRelabel bool
+
+	journal journal
+	acceptance
+
+	// Scratch, reused across utterances.
+	old, dishes []WordType
+	ends        []int
+	newB, newG  []bool
+	wp          []float64 // [m][k]: (1-g) G_w of word [m, m+k)
+	inner       []float64 // [i][l]: sum over analyses of [i, i+l) of prod wp
+	lg          []float64 // [i][l]: tempered log proposal weight of collocation [i, i+l)
+	fwd         []float64
+	byDish      [][]int32
+	tables      []dishTable
+}
+
+type dishTable struct {
+	d    WordType
+	size int32
+}
+
+// NewCollocationSampler seats s, grouped by groups, in m and returns a
+// sampler over all three. m must be empty; groups may be nil (every word
+// its own collocation).
+func NewCollocationSampler(s *Segmentation, groups []bool, m *Collocations, maxWordLength int, rng *rand.Rand) *CollocationSampler {
+	if m.tokens != 0 {
+		panic("segment: NewCollocationSampler needs an empty model")
+	}
+	if groups == nil {
+		groups = append([]bool(nil), s.Boundary...)
+	}
+	m.AddSegmentation(s, groups, rng)
+	return &CollocationSampler{Seg: s, Groups: groups, Model: m, MaxWordLength: maxWordLength}
+}
+
+// Sweep resamples every utterance once, in corpus order, then relabels
+// every collocation table. At temperature T the target is raised to the
+// power 1/T, and so are the proposal's collocation terms.
+func (g *CollocationSampler) Sweep(temperature float64, rng *rand.Rand) {
+	c := g.Seg.Corpus
+	for u := 0; u < c.Len(); u++ {
+		start, end := c.Utterance(u)
+		if end-start > 1 {
+			g.resample(u, start, end, temperature, rng)
+		}
+	}
+	if c.Locks == nil && !g.SkipRelabel {
+		g.relabel(temperature, rng)
+	}
+}
+
+func growFloats(s []float64, n int) []float64 {
+	if cap(s) < n {
+		return make([]float64, n, 2*n)
+	}
+	return s[:n]
+}
+
+// wordLattice fills g.wp for the units [us, ue) with words of up to Kw
+// units: (1-g) times the word level's predictive probability, 0 where
+// locks forbid the word.
+func (g *CollocationSampler) wordLattice(us, ue, Kw int) {
+	m := g.Model
+	c := m.Corpus
+	L := ue - us
+	g.wp = growFloats(g.wp, (L+1)*(Kw+1))
+	cw, tw := m.words.totals(0)
+	pw := m.words.params
+	newW := (pw.Concentration + pw.Discount*tw) / (cw + pw.Concentration)
+	if cw == 0 {
+		newW = 1
+	}
+	stay := 1 - m.GroupEnd
+	for i := 0; i < L; i++ {
+		for k := 1; k <= Kw; k++ {
+			p := 0.0
+			if i+k <= L && spanOK(c, us, ue, us+i, us+i+k) {
+				if w, ok := m.Types.Lookup(c, us+i, us+i+k); ok {
+					p = m.wordProb(w)
+				} else {
+					p = newW * math.Exp(m.Base.LogProb(c, us+i, us+i+k))
+				}
+				p *= stay
+			}
+			g.wp[i*(Kw+1)+k] = p
+		}
+	}
+}
+
+// innerFrom fills g.inner's row for start i (relative) up to Kg units:
+// inner[i][l] sums, over the analyses of [i, i+l) into words, the product
+// of their wp terms.
+func (g *CollocationSampler) innerFrom(i, L, Kw, Kg int) {
+	row := g.inner[i*(Kg+1) : (i+1)*(Kg+1)]
+	row[0] = 1
+	for l := 1; l <= Kg; l++ {
+		s := 0.0
+		if i+l <= L {
+			for k := 1; k <= min(l, Kw); k++ {
+				s += row[l-k] * g.wp[(i+l-k)*(Kw+1)+k]
+			}
+		}
+		row[l] = s
+	}
+}
+
+// groupEdgeOK reports whether a collocation may start or end at unit a of
+// the utterance [us, ue): not inside a run of units locked together.
+func groupEdgeOK(c *Corpus, us, ue, a int) bool {
+	return c.Locks == nil || a == us || a == ue || c.Locks[a] != Joined
+}
+
+// resample proposes a new segmentation and grouping of the utterance
+// [us, ue).
+func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *rand.Rand) {
+	m := g.Model
+	c := m.Corpus
+	L := ue - us
+	Kw := g.maxWordLen(us, ue)
+	Kg := max(min(MaxCollocationLength, L), Kw)
+	inv := 1 / temperature
+
+	// Remove the current collocations, reading off their predictives. The
+	// lattices must hold the current state, which may have longer words or
+	// collocations than proposals make (a random start).
+	g.old = g.old[:0]
+	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+		g.old = append(g.old, m.internDish(a, ends))
+		Kg = max(Kg, ends[len(ends)-1]-a)
+		prev := a
+		for _, e := range ends {
+			Kw = max(Kw, e-prev)
+			prev = e
+		}
+	})
+	Kg = max(Kg, Kw)
+	g.journal.reset()
+	tokensBefore := m.tokens
+	logOld := 0.0
+	for k := len(g.old) - 1; k >= 0; k-- {
+		logOld += m.remove(g.old[k], rng, &g.journal)
+	}
+	logOld += m.logUtteranceEnds(tokensBefore - m.tokens)
+
+	// Lattices: words, analyses, collocations.
+	g.wordLattice(us, ue, Kw)
+	g.inner = growFloats(g.inner, (L+1)*(Kg+1))
+	for i := 0; i < L; i++ {
+		g.innerFrom(i, L, Kw, Kg)
+	}
+	cg, tg := m.groups.totals(0)
+	pg := m.groups.params
+	newG := pg.Concentration + pg.Discount*tg
+	norm := cg + pg.Concentration
+	if cg == 0 {
+		newG, norm = 1, 1
+	}
+	h := m.Rho / 2
+	logCont := math.Log((float64(m.tokens) - float64(m.utterances-1) + h) / (float64(m.tokens) + m.Rho))
+	baseScale := m.GroupEnd / (1 - m.GroupEnd)
+	g.lg = growFloats(g.lg, (L+1)*(Kg+1))
+	for i := 0; i < L; i++ {
+		for l := 1; l <= Kg; l++ {
+			v := math.Inf(-1)
+			if i+l <= L && groupEdgeOK(c, us, ue, us+i) && groupEdgeOK(c, us, ue, us+i+l) {
+				p := newG * baseScale * g.inner[i*(Kg+1)+l]
+				if s, ok := m.Strings.Lookup(c, us+i, us+i+l); ok {
+					p += g.joinWeight(s)
+				}
+				if p > 0 {
+					v = inv * (math.Log(p/norm) + logCont)
+				}
+			}
+			g.lg[i*(Kg+1)+l] = v
+		}
+	}
+	g.fwd = growFloats(g.fwd, L+1)
+	g.fwd[0] = 0
+	for j := 1; j <= L; j++ {
+		acc := math.Inf(-1)
+		for l := 1; l <= min(j, Kg); l++ {
+			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*(Kg+1)+l])
+		}
+		g.fwd[j] = acc
+	}
+
+	// The old state's proposal probability.
+	logQOld := -g.fwd[L]
+	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+		i, l := a-us, ends[len(ends)-1]-a
+		logQOld += g.lg[i*(Kg+1)+l] + g.logAnalysis(a, ends, Kw, Kg, us, newG*baseScale)
+	})
+
+	// Backward sampling: collocation ends from the right, each one's
+	// analysis, recorded in newB and newG.
+	g.newB = growBools(g.newB, L+1)
+	g.newG = growBools(g.newG, L+1)
+	clear(g.newB)
+	clear(g.newG)
+	logQNew := -g.fwd[L]
+	for j := L; j > 0; {
+		r := math.Log(rng.Float64()) + g.fwd[j]
+		acc := math.Inf(-1)
+		l := 1
+		for ; l < min(j, Kg); l++ {
+			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*(Kg+1)+l])
+			if acc > r && g.lg[(j-l)*(Kg+1)+l] > math.Inf(-1) {
+				break
+			}
+		}
+		for g.lg[(j-l)*(Kg+1)+l] == math.Inf(-1) { // rounding past the last possible one
+			l--
+		}
+		i := j - l
+		logQNew += g.lg[i*(Kg+1)+l]
+		g.newG[i] = true
+		logQNew += g.sampleAnalysis(us+i, us+j, Kw, Kg, us, newG*baseScale, rng)
+		j = i
+	}
+
+	// Seat the proposal, multiplying its predictives.
+	mk := m.mark()
+	tokensMid := m.tokens
+	logNew := 0.0
+	a := us
+	g.ends = g.ends[:0]
+	g.dishes = g.dishes[:0]
+	for i := us + 1; i <= ue; i++ {
+		if i == ue || g.newB[i-us] || g.newG[i-us] {
+			g.ends = append(g.ends, i)
+		}
+		if i == ue || g.newG[i-us] {
+			d := m.internDish(a, g.ends)
+			g.dishes = append(g.dishes, d)
+			logNew += m.add(d, rng, &g.journal)
+			a, g.ends = i, g.ends[:0]
+		}
+	}
+	m.tokens, tokensMid = tokensMid, m.tokens // the end term sees the other utterances only
+	logNew += m.logUtteranceEnds(tokensMid - m.tokens)
+	m.tokens = tokensMid
+
+	g.steps++
+	logRatio := (logNew*inv - logQNew) - (logOld*inv - logQOld)
+	if logRatio >= 0 || math.Log(rng.Float64()) < logRatio {
+		for i := us + 1; i < ue; i++ {
+			g.Seg.Boundary[i] = g.newB[i-us] || g.newG[i-us]
+			g.Groups[i] = g.newG[i-us]
+		}
+		g.accepts++
+		return
+	}
+	g.journal.undo()
+	m.tokens = tokensBefore
+	m.forget(mk)
+}
+
+func growBools(s []bool, n int) []bool {
+	if cap(s) < n {
+		return make([]bool, n, 2*n)
+	}
+	return s[:n]
+}
+
+// joinWeight returns the collocation level's weight of joining an existing
+// table of string type s, summed over its analyses: sum (c - d t).
+func (g *CollocationSampler) joinWeight(s WordType) float64 {
+	m := g.Model
+	d := m.Group.Discount
+	w := 0.0
+	for _, dish := range m.analyses[s] {
+		if ds := m.groups.seating(0, dish, false); ds != nil {
+			w += float64(ds.customers) - d*float64(ds.tables)
+		}
+	}
+	return w
+}
+
+// analysisWeights returns, for the collocation [a, ends[last]) analysed
+// into words ending at ends, its dish's join weight (0 if it has no dish)
+// and its new-table weight newW * prod wp.
+func (g *CollocationSampler) analysisWeights(a int, ends []int, Kw, us int, newW float64) (join, fresh float64) {
+	m := g.Model
+	fresh = newW
+	prev := a
+	for _, e := range ends {
+		fresh *= g.wp[(prev-us)*(Kw+1)+e-prev]
+		prev = e
+	}
+	if d, ok := g.lookupDish(a, ends); ok {
+		if ds := m.groups.seating(0, d, false); ds != nil {
+			join = float64(ds.customers) - m.Group.Discount*float64(ds.tables)
+		}
+	}
+	return join, fresh
+}
+
+// lookupDish returns the dish of the analysed span without creating it.
+func (g *CollocationSampler) lookupDish(a int, ends []int) (WordType, bool) {
+	m := g.Model
+	s, ok := m.Strings.Lookup(m.Corpus, a, ends[len(ends)-1])
+	if !ok {
+		return 0, false
+	}
+	for _, d := range m.analyses[s] {
+		ws := m.dishWordsOf(d)
+		if len(ws) != len(ends) {
+			continue
+		}
+		same, prev := true, a
+		for k, e := range ends {
+			if int(m.Types.Length[ws[k]]) != e-prev {
+				same = false
+				break
+			}
+			prev = e
+		}
+		if same {
+			return d, true
+		}
+	}
+	return 0, false
+}
+
+// logAnalysis returns the log probability that the backward pass picks
+// the given analysis for the collocation [a, ends[last]).
+func (g *CollocationSampler) logAnalysis(a int, ends []int, Kw, Kg, us int, newW float64) float64 {
+	m := g.Model
+	b := ends[len(ends)-1]
+	total := newW * g.inner[(a-us)*(Kg+1)+b-a]
+	if s, ok := m.Strings.Lookup(m.Corpus, a, b); ok {
+		total += g.joinWeight(s)
+	}
+	join, fresh := g.analysisWeights(a, ends, Kw, us, newW)
+	return math.Log((join + fresh) / total)
+}
+
+// sampleAnalysis draws an analysis of the collocation [a, b): an existing
+// dish's with weight c - d t, or a fresh one from the inner lattice with
+// total weight newW * inner. It marks the words' boundaries in newB and
+// returns the log probability of the analysis drawn, which may be an
+// existing dish's drawn afresh (logAnalysis counts both ways).
+func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, rng *rand.Rand) float64 {
+	m := g.Model
+	row := g.inner[(a-us)*(Kg+1):]
+	fresh := newW * row[b-a]
+	join := 0.0
+	s, known := m.Strings.Lookup(m.Corpus, a, b)
+	if known {
+		join = g.joinWeight(s)
+	}
+	g.ends = g.ends[:0]
+	if r := rng.Float64() * (join + fresh); r < join {
+		d := m.Group.Discount
+		var pick WordType = -1
+		for _, dish := range m.analyses[s] {
+			if ds := m.groups.seating(0, dish, false); ds != nil {
+				r -= float64(ds.customers) - d*float64(ds.tables)
+				pick = dish
+				if r < 0 {
+					break
+				}
+			}
+		}
+		e := a
+		for _, w := range m.dishWordsOf(pick) {
+			e += int(m.Types.Length[w])
+			g.ends = append(g.ends, e)
+		}
+	} else {
+		for e := b - a; e > 0; {
+			r := rng.Float64() * row[e]
+			k := 1
+			for ; k < min(e, Kw); k++ {
+				r -= row[e-k] * g.wp[(a-us+e-k)*(Kw+1)+k]
+				if r < 0 {
+					break
+				}
+			}
+			for g.wp[(a-us+e-k)*(Kw+1)+k] == 0 || row[e-k] == 0 {
+				k-- // rounding past the last possible word
+			}
+			g.ends = append(g.ends, a+e)
+			e -= k
+		}
+		for x, y := 0, len(g.ends)-1; x < y; x, y = x+1, y-1 {
+			g.ends[x], g.ends[y] = g.ends[y], g.ends[x]
+		}
+	}
+	for _, e := range g.ends[:len(g.ends)-1] {
+		g.newB[e-us] = true
+	}
+	jw, fw := g.analysisWeights(a, g.ends, Kw, us, newW)
+	return math.Log((jw + fw) / (join + fresh))
+}
+
+// maxWordLen returns the longest word the proposal allows in [us, ue).
+func (g *CollocationSampler) maxWordLen(us, ue int) int {
+	b := BlockedSampler{Seg: g.Seg, MaxWordLength: g.MaxWordLength}
+	return b.maxLen(us, ue)
+}
+
+// relabel draws a new analysis for every collocation table, in dish
+// order, each accepted by a Metropolis-Hastings test.
+func (g *CollocationSampler) relabel(temperature float64, rng *rand.Rand) {
+	m := g.Model
+	// Index the collocation tokens by dish, by their first unit.
+	for i := range g.byDish {
+		g.byDish[i] = g.byDish[i][:0]
+	}
+	for len(g.byDish) < len(m.dishString) {
+		g.byDish = append(g.byDish, nil)
+	}
+	for u := 0; u < m.Corpus.Len(); u++ {
+		g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+			d, _ := g.lookupDish(a, ends)
+			g.byDish[d] = append(g.byDish[d], int32(a))
+		})
+	}
+	g.tables = g.tables[:0]
+	for i, d := range m.groups.dishes {
+		for _, sc := range m.groups.seats[i].hist {
+			for range sc.Tables {
+				g.tables = append(g.tables, dishTable{d, sc.Size})
+			}
+		}
+	}
+	// As many draws as there are tables, each of a table chosen uniformly:
+	// the tables and their sizes are what relabelling never changes, so
+	// the choice does not depend on the labels it samples (a scan in dish
+	// order would).
+	for range g.tables {
+		k := rng.IntN(len(g.tables))
+		t := g.tables[k]
+		if d2, moved := g.relabelTable(t.d, t.size, 1/temperature, rng); moved {
+			g.tables[k].d = d2
+		}
+	}
+}
+
+// relabelTable proposes a new analysis for one table of dish d seating
+// size customers.
+func (g *CollocationSampler) relabelTable(d WordType, size int32, inv float64, rng *rand.Rand) (WordType, bool) {
+	m := g.Model
+	s := m.dishString[d]
+	if m.Strings.Length[s] == 1 {
+		return d, false // one unit: one analysis
+	}
+	ds := m.groups.seating(0, d, false)
+	if ds == nil || !hasSize(ds, size) {
+		panic("segment: relabelling a table that is not there")
+	}
+	a := int(m.Strings.First[s])
+	b := a + int(m.Strings.Length[s])
+	L := b - a
+	Kw := min(L, g.MaxWordLength)
+	if Kw <= 0 {
+		Kw = L
+	}
+	for _, w := range m.dishWordsOf(d) {
+		Kw = max(Kw, int(m.Types.Length[w]))
+	}
+	g.journal.reset()
+	mk := m.mark()
+	logOld := m.removeWords(d, rng, &g.journal)
+	g.wordLattice(a, b, Kw)
+	g.inner = growFloats(g.inner, (L+1)*(L+1))
+	g.innerFrom(0, L, Kw, L)
+	z := g.inner[L]
+	// Old analysis's proposal probability.
+	logQOld := -math.Log(z)
+	prev := a
+	for _, w := range m.dishWordsOf(d) {
+		k := int(m.Types.Length[w])
+		logQOld += math.Log(g.wp[(prev-a)*(Kw+1)+k])
+		prev += k
+	}
+	// Draw a new one backward.
+	g.ends = g.ends[:0]
+	logQNew := -math.Log(z)
+	for e := L; e > 0; {
+		r := rng.Float64() * g.inner[e]
+		k := 1
+		for ; k < min(e, Kw); k++ {
+			r -= g.inner[e-k] * g.wp[(e-k)*(Kw+1)+k]
+			if r < 0 {
+				break
+			}
+		}
+		for g.wp[(e-k)*(Kw+1)+k] == 0 || g.inner[e-k] == 0 {
+			k--
+		}
+		logQNew += math.Log(g.wp[(e-k)*(Kw+1)+k])
+		g.ends = append(g.ends, a+e)
+		e -= k
+	}
+	for x, y := 0, len(g.ends)-1; x < y; x, y = x+1, y-1 {
+		g.ends[x], g.ends[y] = g.ends[y], g.ends[x]
+	}
+	d2 := m.internDish(a, g.ends)
+	logNew := m.addWords(d2, rng, &g.journal)
+	logRatio := (logNew*inv - logQNew) - (logOld*inv - logQOld)
+	if !(logRatio >= 0 || math.Log(rng.Float64()) < logRatio) {
+		g.journal.undo()
+		m.forget(mk)
+		return d, false
+	}
+	if d2 == d {
+		return d, false
+	}
+	m.groups.moveTable(0, d, d2, size)
+	for len(g.byDish) <= int(d2) {
+		g.byDish = append(g.byDish, nil)
+	}
+	// The table's customers are size of d's tokens, uniformly: tokens
+	// are exchangeable given the histogram.
+	toks := g.byDish[d]
+	for x := 0; x < int(size); x++ {
+		y := x + rng.IntN(len(toks)-x)
+		toks[x], toks[y] = toks[y], toks[x]
+		p := int(toks[x])
+		for i := p + 1; i < p+L; i++ {
+			g.Seg.Boundary[i] = false
+		}
+		for _, e := range g.ends[:len(g.ends)-1] {
+			g.Seg.Boundary[p+e-a] = true
+		}
+		g.byDish[d2] = append(g.byDish[d2], toks[x])
+	}
+	g.byDish[d] = toks[size:]
+	return d2, true
+}
+
+func hasSize(ds *dishSeating, size int32) bool {
+	for _, sc := range ds.hist {
+		if sc.Size == size {
+			return true
+		}
+	}
+	return false
+}
+
+// moveTable moves one table of the given size from dish from to dish to,
+// keeping its customers: a change of the table's label.
+func (r *restaurants) moveTable(ctx int32, from, to WordType, size int32) {
+	dt := r.seating(ctx, to, true) // may grow r.seats: look up from after
+	r.roomFor(dt)
+	dt.bump(size, +1)
+	dt.tables++
+	dt.customers += size
+	df := r.seating(ctx, from, false)
+	df.bump(size, -1)
+	df.tables--
+	df.customers -= size
+	r.changes++
+}
