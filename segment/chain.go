@@ -13,6 +13,8 @@ type Hyper struct {
 	Discount0 float64 `json:"discount0"`
 	Discount1 float64 `json:"discount1"`
 	WordEnd   float64 `json:"word_end"`
+	// GroupEnd is the collocation model's g.
+	GroupEnd float64 `json:"group_end,omitempty"`
 	// Ngram holds the character model's levels when the base is "ngram".
 	Ngram []PitmanYor `json:"ngram,omitempty"`
 }
@@ -37,6 +39,9 @@ type ChainState struct {
 	Iteration int    `json:"iteration"` // sweeps completed
 	Hyper     Hyper  `json:"hyper"`
 	Boundary  []bool `json:"-"`
+	// Groups marks the units that start a collocation (collocation model
+	// only; nil otherwise).
+	Groups []bool `json:"-"`
 	// BoundaryCounts[i] counts the samples after burn-in with a boundary
 	// before unit i; Samples is their number.
 	BoundaryCounts []uint32 `json:"-"`
@@ -55,13 +60,32 @@ func blockRand(seed uint64, chain, block int) *rand.Rand {
 func InitialState(c *Corpus, cfg Config, index int) *ChainState {
 	rng := blockRand(cfg.Seed, index, -1)
 	seg := RandomSegmentation(c, cfg.InitialBoundary, rng)
-	return &ChainState{
+	st := &ChainState{
 		Index: index,
 		Hyper: Hyper{Alpha0: cfg.Alpha0, Alpha1: cfg.Alpha1, Discount0: cfg.Discount0,
 			Discount1: cfg.Discount1, WordEnd: cfg.WordEnd},
 		Boundary:       seg.Boundary,
 		BoundaryCounts: make([]uint32, len(c.Units)),
 	}
+	if cfg.Model == "collocation" {
+		st.Hyper.GroupEnd = 0.5
+		st.Groups = randomGroups(c, seg.Boundary, rng)
+	}
+	return st
+}
+
+// randomGroups starts a collocation at every utterance start and at each
+// other word boundary with probability 1/2.
+func randomGroups(c *Corpus, boundary []bool, rng *rand.Rand) []bool {
+	groups := make([]bool, len(boundary))
+	for u := 0; u < c.Len(); u++ {
+		start, end := c.Utterance(u)
+		groups[start] = true
+		for i := start + 1; i < end; i++ {
+			groups[i] = boundary[i] && rng.IntN(2) == 0
+		}
+	}
+	return groups
 }
 
 // newModel builds the model cfg asks for with hyperparameters h.
@@ -101,24 +125,36 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 	block := st.Iteration / cfg.Block
 	rng := blockRand(cfg.Seed, st.Index, block)
 	seg := &Segmentation{Corpus: c, Boundary: st.Boundary}
-	m := newModel(c, cfg, st.Hyper)
+	var m chainModel
 	var g sampler
-	var f UtteranceFactor
-	if cfg.SamplerFor(c) == "blocked" {
-		bs := NewBlockedSampler(seg, m, cfg.MaxWordLength, rng)
-		bs.UnigramProposal = cfg.Proposal == "unigram"
+	if cfg.Model == "collocation" {
 		if factor != nil {
-			f = factor(utteranceWords(seg, m))
-			bs.Factor, bs.Weight = f, cfg.TranslationWeight
+			return fmt.Errorf("the collocation model takes no translation factor")
 		}
-		g = bs
+		if st.Groups == nil {
+			st.Groups = append([]bool(nil), st.Boundary...)
+		}
+		cm := NewCollocations(c, PitmanYor{st.Hyper.Discount0, st.Hyper.Alpha0}, PitmanYor{st.Hyper.Discount1, st.Hyper.Alpha1},
+			UniformBase{WordEnd: st.Hyper.WordEnd, Units: max(1, len(c.Inventory))}, st.Hyper.GroupEnd)
+		cm.Rho = cfg.Rho
+		m, g = cm, NewCollocationSampler(seg, st.Groups, cm, cfg.MaxWordLength, rng)
 	} else {
-		gs := NewWordsGibbs(seg, m, rng)
-		if factor != nil {
-			f = factor(utteranceWords(seg, m))
-			gs.Factor, gs.Weight = f, cfg.TranslationWeight
+		wm := newModel(c, cfg, st.Hyper)
+		m = wm
+		if cfg.SamplerFor(c) == "blocked" {
+			bs := NewBlockedSampler(seg, wm, cfg.MaxWordLength, rng)
+			bs.UnigramProposal = cfg.Proposal == "unigram"
+			if factor != nil {
+				bs.Factor, bs.Weight = factor(utteranceWords(seg, wm)), cfg.TranslationWeight
+			}
+			g = bs
+		} else {
+			gs := NewWordsGibbs(seg, wm, rng)
+			if factor != nil {
+				gs.Factor, gs.Weight = factor(utteranceWords(seg, wm)), cfg.TranslationWeight
+			}
+			g = gs
 		}
-		g = gs
 	}
 	stop := min(cfg.Iterations, (block+1)*cfg.Block)
 	for st.Iteration < stop {
@@ -141,13 +177,31 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 			st.Samples++
 		}
 		st.Trace = append(st.Trace, TracePoint{Iteration: st.Iteration, Temperature: temp,
-			LogProb: m.LogJoint(), Hyper: m.hyper(), Acceptance: g.AcceptanceRate(), Words: m.tokens})
+			LogProb: m.LogJoint(), Hyper: m.hyper(), Acceptance: g.AcceptanceRate(), Words: m.wordTokens()})
 		if progress != nil {
 			progress()
 		}
 	}
 	st.Hyper = m.hyper()
 	return nil
+}
+
+// chainModel is what a chain needs of a model.
+type chainModel interface {
+	SampleHyperparameters(Fixed, *rand.Rand)
+	LogJoint() float64
+	hyper() Hyper
+	wordTokens() int
+}
+
+func (m *Words) wordTokens() int { return m.tokens }
+
+func (m *Collocations) wordTokens() int { return m.Tokens() }
+
+func (m *Collocations) hyper() Hyper {
+	return Hyper{Alpha0: m.Word.Concentration, Alpha1: m.Group.Concentration,
+		Discount0: m.Word.Discount, Discount1: m.Group.Discount,
+		WordEnd: m.Base.WordEnd, GroupEnd: m.GroupEnd}
 }
 
 // sampler is what a chain needs of a sampler.
@@ -205,6 +259,9 @@ func (st *ChainState) clone() *ChainState {
 	cp := *st
 	cp.Boundary = append([]bool(nil), st.Boundary...)
 	cp.BoundaryCounts = append([]uint32(nil), st.BoundaryCounts...)
+	if st.Groups != nil {
+		cp.Groups = append([]bool(nil), st.Groups...)
+	}
 	cp.Trace = append([]TracePoint(nil), st.Trace...)
 	return &cp
 }

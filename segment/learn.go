@@ -106,8 +106,14 @@ func DefaultBurnin(iterations int) int { return iterations / 2 }
 // Validate reports the first setting that is out of range.
 func (cfg Config) Validate() error {
 	switch {
-	case cfg.Model != "unigram" && cfg.Model != "bigram":
-		return fmt.Errorf("unknown model %q (want unigram or bigram)", cfg.Model)
+	case cfg.Model != "unigram" && cfg.Model != "bigram" && cfg.Model != "collocation":
+		return fmt.Errorf("unknown model %q (want unigram, bigram or collocation)", cfg.Model)
+	case cfg.Model == "collocation" && cfg.Base != "uniform":
+		return fmt.Errorf("the collocation model has the uniform base only, not %q", cfg.Base)
+	case cfg.Model == "collocation" && cfg.Sampler == "boundary":
+		return fmt.Errorf("the collocation model has its own blocked sampler, not the boundary sampler")
+	case cfg.Model == "collocation" && cfg.TranslationWeight > 0:
+		return fmt.Errorf("the collocation model takes no translation factor (weight %v)", cfg.TranslationWeight)
 	case cfg.Base != "uniform" && cfg.Base != "ngram":
 		return fmt.Errorf("unknown base %q (want uniform or ngram)", cfg.Base)
 	case cfg.NgramOrder < 1 || cfg.NgramOrder > 8: // checked with any base: a bad value is a typo

@@ -50,7 +50,7 @@ func output(t *testing.T, res *Result) string {
 // depends on the seed only.
 func TestRunIndependentOfThreads(t *testing.T) {
 	c := syntheticCorpus(t, 60)
-	for _, model := range []string{"unigram", "bigram"} {
+	for _, model := range []string{"unigram", "bigram", "collocation"} {
 		cfg := runConfig(model)
 		var outs []string
 		var posts [][]float64
@@ -86,7 +86,7 @@ func TestRunIndependentOfThreads(t *testing.T) {
 // building the corpus's span index does not race with the other runs.
 func TestRunConcurrentOnOneCorpus(t *testing.T) {
 	shared := syntheticCorpus(t, 60)
-	configs := []Config{runConfig("unigram"), runConfig("bigram"), runConfig("bigram")}
+	configs := []Config{runConfig("unigram"), runConfig("bigram"), runConfig("bigram"), runConfig("collocation")}
 	configs[1].Sampler, configs[2].Sampler = "blocked", "boundary"
 	want := make([]string, len(configs))
 	for i, cfg := range configs {
@@ -124,7 +124,7 @@ func TestRunConcurrentOnOneCorpus(t *testing.T) {
 // the checkpointed states and compares with an uninterrupted run.
 func TestRunResumeIdentical(t *testing.T) {
 	c := syntheticCorpus(t, 60)
-	for _, model := range []string{"unigram", "bigram"} {
+	for _, model := range []string{"unigram", "bigram", "collocation"} {
 		cfg := runConfig(model)
 		full, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 		if err != nil {
@@ -141,6 +141,7 @@ func TestRunResumeIdentical(t *testing.T) {
 				cp := *st
 				cp.Boundary = append([]bool(nil), st.Boundary...)
 				cp.BoundaryCounts = append([]uint32(nil), st.BoundaryCounts...)
+				cp.Groups = append([]bool(nil), st.Groups...)
 				cp.Trace = append([]TracePoint(nil), st.Trace...)
 				saved[st.Index] = &cp
 				if n++; n == stopAfter {

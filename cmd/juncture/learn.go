@@ -30,7 +30,7 @@ func learnCommand() *cli.Command {
 			"   juncture learn --seed 3 --out words.txt transcripts.txt\n" +
 			"   juncture learn --model bigram --chains 2 --posteriors gaps.tsv transcripts.txt",
 		Flags: append([]cli.Flag{
-			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, or bigram (hierarchical: each word's successors back off to the unigram)"},
+			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, bigram (hierarchical: each word's successors back off to the unigram), or collocation (utterances are sequences of collocations, recurring groups of words, drawn from a process over word sequences whose words come from a unigram; --alpha0/--discount0 then set the word level, --alpha1/--discount1 the collocation level)"},
 			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
 			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time), blocked (one utterance at a time, forward filtering and backward sampling), or auto: blocked, except boundary for the bigram model when utterances average more than 12 units (long utterances make bigram lattices expensive)"},

@@ -102,7 +102,13 @@ func TestLearnResumeAfterKill(t *testing.T) {
 		t.Skip("kills real processes")
 	}
 	in := testCorpus(t, 300)
-	flags := []string{"--model", "bigram", "--iterations", "60", "--block", "4", "--chains", "2", "--seed", "3"}
+	for _, model := range []string{"bigram", "collocation"} {
+		t.Run(model, func(t *testing.T) { killAndResume(t, in, model) })
+	}
+}
+
+func killAndResume(t *testing.T, in, model string) {
+	flags := []string{"--model", model, "--iterations", "60", "--block", "4", "--chains", "2", "--seed", "3"}
 	ref := t.TempDir()
 	want := run(t, nil, append(append([]string{"learn", "-q", "--state", ref}, flags...), in)...)
 	for _, delay := range []time.Duration{30 * time.Millisecond, 150 * time.Millisecond, 400 * time.Millisecond, 900 * time.Millisecond} {

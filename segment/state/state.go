@@ -209,7 +209,10 @@ func Open(dir string) (*segment.Corpus, Settings, []*segment.ChainState, error) 
 // chainWire is the JSON form of a ChainState.
 type chainWire struct {
 	*segment.ChainState
-	Boundary string   `json:"boundary"` // '1' boundary, '0' none, per unit
+	// Boundary has one byte per unit: '0' no boundary, '1' a word
+	// boundary, '2' a word boundary that starts a collocation (collocation
+	// model only).
+	Boundary string   `json:"boundary"`
 	Counts   []uint32 `json:"boundary_counts"`
 }
 
@@ -221,9 +224,13 @@ func chainPath(dir string, i int) string {
 func SaveChain(dir string, st *segment.ChainState) error {
 	b := make([]byte, len(st.Boundary))
 	for i, v := range st.Boundary {
-		b[i] = '0'
-		if v {
+		switch {
+		case st.Groups != nil && st.Groups[i]:
+			b[i] = '2'
+		case v:
 			b[i] = '1'
+		default:
+			b[i] = '0'
 		}
 	}
 	return atomicfile.Write(chainPath(dir, st.Index), func(w io.Writer) error {
@@ -256,8 +263,20 @@ func loadChain(dir string, i int, c *segment.Corpus) (*segment.ChainState, error
 		return nil, fmt.Errorf("%s: does not fit the corpus", path)
 	}
 	st.Boundary = make([]bool, len(w.Boundary))
+	if strings.IndexByte(w.Boundary, '2') >= 0 {
+		st.Groups = make([]bool, len(w.Boundary))
+	}
 	for k := range w.Boundary {
-		st.Boundary[k] = w.Boundary[k] == '1'
+		switch w.Boundary[k] {
+		case '2':
+			st.Groups[k] = true
+			st.Boundary[k] = true
+		case '1':
+			st.Boundary[k] = true
+		case '0':
+		default:
+			return nil, fmt.Errorf("%s: unit %d: boundary code %q is not 0, 1 or 2", path, k, w.Boundary[k])
+		}
 	}
 	st.BoundaryCounts = w.Counts
 	return st, nil
