@@ -3,6 +3,7 @@ package segment
 import (
 	"context"
 	"fmt"
+	"math"
 	"math/rand/v2"
 )
 
@@ -177,13 +178,27 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 			st.Samples++
 		}
 		st.Trace = append(st.Trace, TracePoint{Iteration: st.Iteration, Temperature: temp,
-			LogProb: m.LogJoint(), Hyper: m.hyper(), Acceptance: g.AcceptanceRate(), Words: m.wordTokens()})
+			LogProb: finiteForJSON(m.LogJoint()), Hyper: m.hyper(), Acceptance: g.AcceptanceRate(), Words: m.wordTokens()})
 		if progress != nil {
 			progress()
 		}
 	}
 	st.Hyper = m.hyper()
 	return nil
+}
+
+// finiteForJSON returns x, or the largest finite float64 of its sign if x
+// is infinite: a state the model gives probability 0 (a start that breaks
+// a constraint the sampler then repairs) has log probability -Inf, which
+// JSON cannot hold, and a checkpoint must not fail on it.
+func finiteForJSON(x float64) float64 {
+	switch {
+	case math.IsInf(x, -1):
+		return -math.MaxFloat64
+	case math.IsInf(x, 1):
+		return math.MaxFloat64
+	}
+	return x
 }
 
 // chainModel is what a chain needs of a model.
