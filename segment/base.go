@@ -1,6 +1,9 @@
 package segment
 
-import "math"
+import (
+	"math"
+	"math/rand/v2"
+)
 
 // Base is a base distribution P0 over words: the probability of a word
 // type before any word has been seen.
@@ -17,10 +20,34 @@ type UniformBase struct {
 	WordEnd float64
 	// Units is the number of units in the inventory.
 	Units int
+	// Nuclei, when not nil, restricts P0 to words holding a syllable
+	// nucleus, renormalised over them.
+	Nuclei *Nuclei
 }
 
 // LogProb implements Base.
 func (b UniformBase) LogProb(c *Corpus, start, end int) float64 {
 	n := float64(end - start)
-	return math.Log(b.WordEnd) + (n-1)*math.Log1p(-b.WordEnd) - n*math.Log(float64(b.Units))
+	lp := math.Log(b.WordEnd) + (n-1)*math.Log1p(-b.WordEnd) - n*math.Log(float64(b.Units))
+	if b.Nuclei != nil {
+		if !b.Nuclei.Has(start, end) {
+			return math.Inf(-1)
+		}
+		lp -= b.Nuclei.logMass(b.WordEnd, b.Units)
+	}
+	return lp
+}
+
+// drawWordEnd draws p# from its conditional given the base's tables:
+// tables words of extra units beyond their first in all. Under a Beta(1,1)
+// prior the conditional is Beta(1 + tables, 1 + extra); with nuclei the
+// renormalisation adds -tables log(mass), so it is slice-sampled instead.
+func (b UniformBase) drawWordEnd(tables, extra float64, rng *rand.Rand) float64 {
+	if b.Nuclei == nil {
+		return betaDraw(1+tables, 1+extra, rng)
+	}
+	logf := func(p float64) float64 {
+		return tables*math.Log(p) + extra*math.Log1p(-p) - tables*b.Nuclei.logMass(p, b.Units)
+	}
+	return sliceSample(b.WordEnd, logf, 0.1, 1e-6, 1-1e-6, rng)
 }

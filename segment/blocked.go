@@ -176,7 +176,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	newB := g.growScratch(L, K)
 	if m.Order == 1 || g.UnigramProposal {
 		ok := false
-		if ub, uniform := m.Base.(UniformBase); uniform {
+		if ub, uniform := m.Base.(UniformBase); uniform && ub.Nuclei == nil { // the linear lattices price words by length alone
 			logQOld, logQNew, ok = g.unigramProposalLinear(ub, us, ue, K, inv, newB, rng)
 		}
 		if !ok {
@@ -184,7 +184,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 		}
 	} else {
 		ok := false
-		if ub, uniform := m.Base.(UniformBase); uniform {
+		if ub, uniform := m.Base.(UniformBase); uniform && ub.Nuclei == nil { // the linear lattices price words by length alone
 			logQOld, logQNew, ok = g.bigramProposalLinear(ub, us, ue, K, inv, newB, rng)
 		}
 		if !ok {

@@ -61,6 +61,9 @@ func blockRand(seed uint64, chain, block int) *rand.Rand {
 func InitialState(c *Corpus, cfg Config, index int) *ChainState {
 	rng := blockRand(cfg.Seed, index, -1)
 	seg := RandomSegmentation(c, cfg.InitialBoundary, rng)
+	if nuc := nucleiFor(c, cfg); nuc != nil {
+		nuc.Repair(seg)
+	}
 	st := &ChainState{
 		Index: index,
 		Hyper: Hyper{Alpha0: cfg.Alpha0, Alpha1: cfg.Alpha1, Discount0: cfg.Discount0,
@@ -89,13 +92,26 @@ func randomGroups(c *Corpus, boundary []bool, rng *rand.Rand) []bool {
 	return groups
 }
 
+// nucleiFor returns the nucleus index cfg asks for, nil if none (or if a
+// nucleus is not a unit of c, which Run reports before any chain starts).
+func nucleiFor(c *Corpus, cfg Config) *Nuclei {
+	if len(cfg.Nuclei) == 0 {
+		return nil
+	}
+	nuc, err := NewNuclei(c, cfg.Nuclei)
+	if err != nil {
+		return nil
+	}
+	return nuc
+}
+
 // newModel builds the model cfg asks for with hyperparameters h.
 func newModel(c *Corpus, cfg Config, h Hyper) *Words {
 	order := 1
 	if cfg.Model == "bigram" {
 		order = 2
 	}
-	var base Base = UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory))}
+	var base Base = UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}
 	if cfg.Base == "ngram" {
 		levels := h.Ngram
 		if len(levels) != cfg.NgramOrder {
@@ -136,7 +152,7 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 			st.Groups = append([]bool(nil), st.Boundary...)
 		}
 		cm := NewCollocations(c, PitmanYor{st.Hyper.Discount0, st.Hyper.Alpha0}, PitmanYor{st.Hyper.Discount1, st.Hyper.Alpha1},
-			UniformBase{WordEnd: st.Hyper.WordEnd, Units: max(1, len(c.Inventory))}, st.Hyper.GroupEnd)
+			UniformBase{WordEnd: st.Hyper.WordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}, st.Hyper.GroupEnd)
 		cm.Rho = cfg.Rho
 		m, g = cm, NewCollocationSampler(seg, st.Groups, cm, cfg.MaxWordLength, rng)
 	} else {

@@ -323,7 +323,7 @@ func (m *Collocations) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 				extra += t * float64(m.Types.Length[w]-1)
 			}
 		}
-		m.Base.WordEnd = betaDraw(1+tables, 1+extra, rng)
+		m.Base.WordEnd = m.Base.drawWordEnd(tables, extra, rng)
 		for t := range m.Types.Length {
 			s := int(m.Types.First[t])
 			m.Types.LogBase[t] = m.Base.LogProb(m.Corpus, s, s+int(m.Types.Length[t]))

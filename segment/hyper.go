@@ -4,8 +4,6 @@ import (
 	"math"
 	"math/rand/v2"
 	"slices"
-
-	"gonum.org/v1/gonum/stat/distuv"
 )
 
 // Hyperparameter priors, vague and stated here once:
@@ -128,10 +126,10 @@ func (m *Words) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 	}
 }
 
-// sampleWordEnd draws p# from its conditional, which is conjugate: every
-// unigram-level table of word w contributes p#(1-p#)^(|w|-1) to the base
-// factor, so under a Beta(1,1) prior p# | seating ~ Beta(1 + T, 1 + sum
-// (|w|-1)) over the T word tables.
+// sampleWordEnd draws p# from its conditional: every unigram-level table
+// of word w contributes p#(1-p#)^(|w|-1) to the base factor, so under a
+// Beta(1,1) prior p# | seating ~ Beta(1 + T, 1 + sum (|w|-1)) over the T
+// word tables (see UniformBase.drawWordEnd for the base with nuclei).
 func (m *Words) sampleWordEnd(ub UniformBase, rng *rand.Rand) {
 	tables, extra := 0.0, 0.0
 	for i := range m.uni.seats {
@@ -143,8 +141,7 @@ func (m *Words) sampleWordEnd(ub UniformBase, rng *rand.Rand) {
 		tables += t
 		extra += t * float64(m.Types.Length[w]-1)
 	}
-	ub.WordEnd = distuv.Beta{Alpha: 1 + tables, Beta: 1 + extra, Src: rng}.Rand()
-	ub.WordEnd = math.Min(math.Max(ub.WordEnd, 1e-6), 1-1e-6)
+	ub.WordEnd = ub.drawWordEnd(tables, extra, rng)
 	m.Base = ub
 	for t := range m.Types.Length {
 		s := int(m.Types.First[t])

@@ -73,6 +73,9 @@ type Config struct {
 	// InitialBoundary is the probability of a boundary at each free gap
 	// in the random first segmentation.
 	InitialBoundary float64 `json:"initial_boundary"`
+	// Nuclei lists the units that can be syllable nuclei; when not empty,
+	// every word must hold one (see Nuclei). Uniform base only.
+	Nuclei []string `json:"nuclei,omitempty"`
 	// Seed fixes every random choice.
 	Seed uint64 `json:"seed"`
 	// Schedule gives the temperature of each burn-in iteration; nil means
@@ -108,6 +111,8 @@ func (cfg Config) Validate() error {
 	switch {
 	case cfg.Model != "unigram" && cfg.Model != "bigram" && cfg.Model != "collocation":
 		return fmt.Errorf("unknown model %q (want unigram, bigram or collocation)", cfg.Model)
+	case len(cfg.Nuclei) > 0 && cfg.Base != "uniform":
+		return fmt.Errorf("nuclei work with the uniform base only, not %q", cfg.Base)
 	case cfg.Model == "collocation" && cfg.Base != "uniform":
 		return fmt.Errorf("the collocation model has the uniform base only, not %q", cfg.Base)
 	case cfg.Model == "collocation" && cfg.Sampler == "boundary":
@@ -188,6 +193,15 @@ type RunOptions struct {
 func Run(ctx context.Context, c *Corpus, cfg Config, states []*ChainState, opts RunOptions) (*Result, error) {
 	if err := cfg.Validate(); err != nil {
 		return nil, err
+	}
+	if len(cfg.Nuclei) > 0 {
+		nuc, err := NewNuclei(c, cfg.Nuclei)
+		if err != nil {
+			return nil, err
+		}
+		if err := nuc.Check(c); err != nil {
+			return nil, err
+		}
 	}
 	if states == nil {
 		states = make([]*ChainState, cfg.Chains)

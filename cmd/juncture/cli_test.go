@@ -52,6 +52,10 @@ func TestCommandLineMistakes(t *testing.T) {
 		{[]string{"score", "-r", "-", "-"}, "standard input can be read only once"},
 		{[]string{"demo", "-q", "--top", "-1"}, "--top must be at least 0, got -1"},
 		{[]string{"learn", "-q", "--state", "st", "--resume", "--transcript-column", "ipa"}, "--transcript-column cannot be changed on --resume"},
+		{[]string{"learn", "-q", "--nuclei", "i u e", "in.txt"}, `nucleus "e" is not a unit of in.txt`},
+		{[]string{"learn", "-q", "--nuclei", "u", "in.txt"}, "in.txt:2: no unit of the line is a nucleus (u)"},
+		{[]string{"learn", "-q", "--nuclei", "a", "--base", "ngram", "in.txt"}, "nuclei work with the uniform base only"},
+		{[]string{"learn", "-q", "--model", "collocation", "--sampler", "boundary", "in.txt"}, "collocation model has its own blocked sampler"},
 	} {
 		stdout, stderr, code := runStatus(t, dir, tc.args...)
 		if code != 1 || stdout != "" || !strings.Contains(stderr, tc.want) || strings.Contains(stderr, "panic") {

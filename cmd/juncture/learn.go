@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"strings"
 
 	"github.com/juncture-project/juncture/lexicon"
 	"github.com/juncture-project/juncture/segment"
@@ -28,13 +29,15 @@ func learnCommand() *cli.Command {
 			"an uninterrupted run gives.\n\n" +
 			"Examples:\n" +
 			"   juncture learn --seed 3 --out words.txt transcripts.txt\n" +
-			"   juncture learn --model bigram --chains 2 --posteriors gaps.tsv transcripts.txt",
+			"   juncture learn --model bigram --chains 2 --posteriors gaps.tsv transcripts.txt\n" +
+			"   juncture learn --model collocation --nuclei \"a e i o u\" transcripts.txt",
 		Flags: append([]cli.Flag{
 			&cli.StringFlag{Name: "model", Value: d.Model, Usage: "word model: unigram, bigram (hierarchical: each word's successors back off to the unigram), or collocation (utterances are sequences of collocations, recurring groups of words, drawn from a process over word sequences whose words come from a unigram; --alpha0/--discount0 then set the word level, --alpha1/--discount1 the collocation level)"},
 			&cli.StringFlag{Name: "base", Value: d.Base, Usage: "distribution of new word forms: uniform (all units equally likely) or ngram (learns which units follow which)"},
 			&cli.IntFlag{Name: "ngram-order", Value: d.NgramOrder, Usage: "order of the ngram base (units of context + 1)"},
 			&cli.StringFlag{Name: "sampler", Value: d.Sampler, Usage: "boundary (Gibbs sampling one gap at a time), blocked (one utterance at a time, forward filtering and backward sampling), or auto: blocked, except boundary for the bigram model when utterances average more than 12 units (long utterances make bigram lattices expensive)"},
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself (bigram), or from its unigram level (unigram: cheaper sweeps, but many more rejections, so slower to mix)"},
+			&cli.StringFlag{Name: "nuclei", Usage: "units that can be syllable nuclei (usually the vowels), separated by spaces, e.g. \"a e i o u\": every word must then hold one (uniform base). Leave unset for languages with words without vowels"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations; with --converge at most 50"},
@@ -98,6 +101,7 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	set("discount0", &cfg.Discount0, &cfg.Fixed.Discount0)
 	set("discount1", &cfg.Discount1, &cfg.Fixed.Discount1)
 	set("word-end", &cfg.WordEnd, &cfg.Fixed.WordEnd)
+	cfg.Nuclei = strings.Fields(ctx.String("nuclei"))
 	cfg.TranslationWeight = ctx.Float64("translation-weight")
 	cfg.TranslationMinCount = ctx.Int("translation-min-count")
 	return cfg, cfg.Validate()
