@@ -65,6 +65,7 @@ type BlockedSampler struct {
 	live     []uint8
 	startInv float64
 	invc     []float64 // bigram: 1/c_t, the scale factors by position
+	dead     []bool    // unigram: positions where no word can end
 	newB     []bool
 }
 
@@ -176,7 +177,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 	newB := g.growScratch(L, K)
 	if m.Order == 1 || g.UnigramProposal {
 		ok := false
-		if ub, uniform := m.Base.(UniformBase); uniform && ub.Nuclei == nil { // the linear lattices price words by length alone
+		if ub, uniform := m.Base.(UniformBase); uniform {
 			logQOld, logQNew, ok = g.unigramProposalLinear(ub, us, ue, K, inv, newB, rng)
 		}
 		if !ok {
@@ -184,7 +185,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 		}
 	} else {
 		ok := false
-		if ub, uniform := m.Base.(UniformBase); uniform && ub.Nuclei == nil { // the linear lattices price words by length alone
+		if ub, uniform := m.Base.(UniformBase); uniform {
 			logQOld, logQNew, ok = g.bigramProposalLinear(ub, us, ue, K, inv, newB, rng)
 		}
 		if !ok {

@@ -33,6 +33,14 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 	term := g.term
 	invc := g.fwd // invc[t] = 1/c_t
 	invc[0] = 1
+	// dead[t]: no word can end at t (a base restricted to words with a
+	// nucleus gives some positions forward probability 0). Such a t keeps
+	// c_t = 1 and starts no word.
+	if cap(g.dead) < L+1 {
+		g.dead = make([]bool, L+1, 2*(L+1))
+	}
+	dead := g.dead[:L+1]
+	dead[0] = false
 	logZ := 0.0
 	for t := 1; t <= L; t++ {
 		raw, ratio := 0.0, 1.0
@@ -42,12 +50,17 @@ func (g *BlockedSampler) unigramProposalLinear(ub UniformBase, us, ue, K int, in
 				if k > 1 {
 					ratio *= invc[t-k+1]
 				}
-				if spanOK(c, us, ue, us+t-k, us+t) {
+				if !dead[t-k] && spanOK(c, us, ue, us+t-k, us+t) {
 					_, _, x, _ = up.prob(m, us+t-k, us+t)
 					raw += x * ratio
 				}
 			}
 			term[t*W+k] = x
+		}
+		dead[t] = raw == 0 && t < L
+		if dead[t] {
+			invc[t] = 1
+			continue
 		}
 		if !(raw > 0) || math.IsInf(raw, 1) || math.IsInf(ratio, 1) {
 			return 0, 0, false
@@ -103,6 +116,7 @@ type uniLinear struct {
 	d, newW, norm float64
 	scale, inv    float64
 	r             *restaurants
+	nuc           *Nuclei // a span without a nucleus has base probability 0
 }
 
 // newUniLinear prepares uniLinear for words of up to K units, with every
@@ -116,7 +130,7 @@ func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64)
 	if cap(g.p0) < K+1 {
 		g.p0, g.p0inv = make([]float64, K+1, 2*(K+1)), make([]float64, K+1, 2*(K+1))
 	}
-	u := uniLinear{p0: g.p0[:K+1], p0inv: g.p0inv[:K+1], r: m.uni, scale: scale, inv: inv}
+	u := uniLinear{p0: g.p0[:K+1], p0inv: g.p0inv[:K+1], r: m.uni, scale: scale, inv: inv, nuc: ub.Nuclei}
 	tot, tables := m.uni.totals(0)
 	u.d = m.uni.params.Discount
 	u.norm = scale / (tot + m.uni.params.Concentration)
@@ -126,6 +140,9 @@ func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64)
 	}
 	q := (1 - ub.WordEnd) / float64(ub.Units)
 	v := share * ub.WordEnd / float64(ub.Units)
+	if ub.Nuclei != nil {
+		v /= math.Exp(ub.Nuclei.logMass(ub.WordEnd, ub.Units)) // renormalised over words with a nucleus
+	}
 	for k := 1; k <= K; k++ {
 		u.p0[k] = u.newW * v
 		u.p0inv[k] = powInv(u.p0[k]*u.norm, inv)
@@ -145,14 +162,18 @@ const (
 // inv, and whether the type has unigram-level customers.
 func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64, seated bool) {
 	k := b - a
+	p0, p0inv := u.p0[k], u.p0inv[k]
+	if u.nuc != nil && !u.nuc.Has(a, b) {
+		p0, p0inv = 0, 0
+	}
 	w = m.lookupSpan(a, b)
 	if w >= 0 {
 		if ds := u.r.seating(0, w, false); ds != nil && ds.customers > 0 {
-			x = (u.p0[k] + float64(ds.customers) - u.d*float64(ds.tables)) * u.norm
+			x = (p0 + float64(ds.customers) - u.d*float64(ds.tables)) * u.norm
 			return w, x, powInv(x, u.inv), true
 		}
 	}
-	return w, u.p0[k] * u.norm, u.p0inv[k], false
+	return w, p0 * u.norm, p0inv, false
 }
 
 // powInv returns x^inv, skipping the work at temperature 1.
@@ -226,6 +247,10 @@ func (g *BlockedSampler) bigramProposalLinear(ub UniformBase, us, ue, K int, inv
 			}
 			fwd[idx] = raw
 			sum += raw
+		}
+		if sum == 0 && t < L { // no word can end at t (see unigramProposalLinear)
+			invc = append(invc, 1)
+			continue
 		}
 		if !(sum > 0) || math.IsInf(sum, 1) || math.IsInf(ratio, 1) {
 			return 0, 0, false

@@ -17,7 +17,7 @@ import (
 func TestLinearLatticesMatchLogSpace(t *testing.T) {
 	text := "abcabcab\nbcab\ncabcaabc\naabbccabcab\nab\nbbcabca\ncabcabcabcabcabc"
 	for _, order := range []int{1, 2} {
-		for _, d := range []float64{0, 0.4} {
+		for _, d := range []float64{0, 0.4, -1} { // -1: no discount, a base restricted to words with "a"
 			for _, temp := range []float64{1, 2.5, 10} {
 				c, err := ReadCorpus(strings.NewReader(text), "t", ReadOptions{})
 				if err != nil {
@@ -26,8 +26,16 @@ func TestLinearLatticesMatchLogSpace(t *testing.T) {
 				c.IndexSpans(4)
 				rng := rand.New(rand.NewPCG(uint64(order), 5))
 				ub := UniformBase{WordEnd: 0.4, Units: len(c.Inventory)}
+				seg := RandomSegmentation(c, 0.4, rng)
+				if d < 0 {
+					d = 0
+					if ub.Nuclei, err = NewNuclei(c, []string{"a"}); err != nil {
+						t.Fatal(err)
+					}
+					ub.Nuclei.Repair(seg)
+				}
 				m := NewWords(c, order, PitmanYor{d, 3}, PitmanYor{d / 2, 2}, ub)
-				g := NewBlockedSampler(RandomSegmentation(c, 0.4, rng), m, 5, rng)
+				g := NewBlockedSampler(seg, m, 5, rng)
 				for range 3 { // a state with repeated words
 					g.Sweep(1, rng)
 				}
