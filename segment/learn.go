@@ -319,13 +319,19 @@ func spanIndexLength(cfg Config) int {
 const BlockedBigramMaxMeanLength = 12
 
 // SamplerFor returns the sampler a run of cfg on c uses: cfg.Sampler, or
-// for "auto" the blocked sampler, except for the bigram model on corpora
-// whose utterances average more than BlockedBigramMaxMeanLength units.
+// for "auto" the blocked sampler, except for the bigram model without
+// nuclei on corpora whose utterances average more than
+// BlockedBigramMaxMeanLength units. With nuclei the blocked sampler wins
+// there too: on the demo (bigram, 200 sweeps, 2 chains, seeds 1-3) token F
+// 0.943 / 0.922 / 0.935 against 0.865 / 0.878 / 0.864 for the boundary
+// sampler, in the same time (6.2 s against 6.0 s), as spans without a
+// nucleus drop out of the lattice while gap flips must pass through words
+// the constraint forbids.
 func (cfg Config) SamplerFor(c *Corpus) string {
 	if cfg.Sampler != "auto" {
 		return cfg.Sampler
 	}
-	if cfg.Model == "bigram" && c.Len() > 0 && len(c.Units) > BlockedBigramMaxMeanLength*c.Len() {
+	if cfg.Model == "bigram" && len(cfg.Nuclei) == 0 && c.Len() > 0 && len(c.Units) > BlockedBigramMaxMeanLength*c.Len() {
 		return "boundary"
 	}
 	return "blocked"

@@ -24,7 +24,8 @@ func demoCommand() *cli.Command {
 			"corpus's gold segmentation and lists the most frequent words found, with how sure\n" +
 			"the sampler is of their edges and whether the invented lexicon has them.",
 		Flags: []cli.Flag{
-			&cli.StringFlag{Name: "model", Value: "bigram", Usage: "word model: unigram or bigram"},
+			&cli.StringFlag{Name: "model", Value: "bigram", Usage: "word model: unigram, bigram or collocation"},
+			&cli.StringFlag{Name: "nuclei", Value: "i e a o u aː", Usage: "units that can be syllable nuclei, separated by spaces (Kelaru's vowels); every word must hold one. Empty: no constraint"},
 			&cli.Float64Flag{Name: "translation-weight", Value: 0, Usage: "weight of the English translations as a prior on segmenting (0: used for glosses only)"},
 			&cli.IntFlag{Name: "iterations", Value: 200, Usage: "Gibbs sweeps per chain"},
 			&cli.IntFlag{Name: "chains", Value: 2, Usage: "independent chains, pooled"},
@@ -50,6 +51,7 @@ func runDemo(ctx *cli.Context) error {
 	if cfg.Model == "bigram" {
 		cfg.Alpha0 = 3000
 	}
+	cfg.Nuclei = strings.Fields(ctx.String("nuclei"))
 	cfg.Iterations = ctx.Int("iterations")
 	cfg.Burnin = cfg.Iterations * 4 / 5
 	cfg.Chains = ctx.Int("chains")
@@ -75,7 +77,11 @@ func runDemo(ctx *cli.Context) error {
 	if cfg.TranslationWeight > 0 {
 		factor = translationFactor(tokens, cfg)
 	}
-	fmt.Fprintf(out, "Learning with the %s model, %d chain(s) of %d sweeps...\n", cfg.Model, cfg.Chains, cfg.Iterations)
+	fmt.Fprintf(out, "Learning with the %s model, %d chain(s) of %d sweeps", cfg.Model, cfg.Chains, cfg.Iterations)
+	if len(cfg.Nuclei) > 0 {
+		fmt.Fprintf(out, ", every word holding one of %s", strings.Join(cfg.Nuclei, " "))
+	}
+	fmt.Fprintln(out, "...")
 	bar := newProgress(ctx.App.ErrWriter, cfg.Iterations*cfg.Chains, "learning", ctx.Bool("quiet"))
 	var progress func()
 	if bar != nil {
