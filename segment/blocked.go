@@ -228,6 +228,7 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 			b[i] = newB[i-us]
 		}
 		g.accepts++
+		g.journal.releaseEmpty()
 		return
 	}
 	g.journal.undo()

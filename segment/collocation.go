@@ -123,7 +123,7 @@ func (m *Collocations) dishWordsOf(d WordType) []WordType {
 type collocationMarks struct{ types, strings, dishes, wordSeats, groupSeats int }
 
 func (m *Collocations) mark() collocationMarks {
-	return collocationMarks{m.Types.Len(), m.Strings.Len(), len(m.dishString), len(m.words.seats), len(m.groups.seats)}
+	return collocationMarks{m.Types.Len(), m.Strings.Len(), len(m.dishString), m.words.markSeats(), m.groups.markSeats()}
 }
 
 // forget drops the types, dishes and seats created since mk, after a
@@ -301,7 +301,9 @@ func (m *Collocations) LogJoint() float64 {
 func (m *Collocations) Tokens() int {
 	n := 0
 	for i, d := range m.groups.dishes {
-		n += int(m.groups.seats[i].customers) * len(m.dishWordsOf(d))
+		if c := m.groups.seats[i].customers; c > 0 { // a free slot's dish may be forgotten
+			n += int(c) * len(m.dishWordsOf(d))
+		}
 	}
 	return n
 }

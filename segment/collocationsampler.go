@@ -281,6 +281,7 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 			g.Groups[i] = g.newG[i-us]
 		}
 		g.accepts++
+		g.journal.releaseEmpty()
 		return
 	}
 	g.journal.undo()
@@ -538,6 +539,7 @@ func (g *CollocationSampler) relabelTable(d WordType, size int32, inv float64, r
 		m.forget(mk)
 		return d, false
 	}
+	g.journal.releaseEmpty()
 	if d2 == d {
 		return d, false
 	}
@@ -586,4 +588,8 @@ func (r *restaurants) moveTable(ctx int32, from, to WordType, size int32) {
 	df.tables--
 	df.customers -= size
 	r.changes++
+	if df.customers == 0 {
+		i, _ := r.index.get(seatKey(ctx, from))
+		r.release(i)
+	}
 }

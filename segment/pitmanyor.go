@@ -34,6 +34,8 @@ type restaurants struct {
 	slab      []sizeCount   // spare histogram room for new dishes
 	free      [][]sizeCount // histogram room of dropped seats, for reuse
 	seatCtx   []int32       // seatCtx[i] is the context of seats[i]
+	freeSeats []int32       // released slots of seats, for reuse
+	created   []int32       // slots created since markSeats, for dropSeats
 	// changes counts seating changes, undone ones included, so that a
 	// cache of predictive probabilities can tell when it is stale.
 	changes uint64
@@ -63,16 +65,27 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		r.customers = append(r.customers, 0)
 		r.tables = append(r.tables, 0)
 	}
-	r.index.put(k, int32(len(r.seats)))
+	// Reuse a released slot if there is one, so that a long run's seat
+	// slices stop growing once they hold the most seats ever live at once.
+	i := int32(len(r.seats))
+	if n := len(r.freeSeats); n > 0 {
+		i, r.freeSeats = r.freeSeats[n-1], r.freeSeats[:n-1]
+	} else {
+		r.seats = append(r.seats, dishSeating{})
+		r.dishes = append(r.dishes, 0)
+		r.seatCtx = append(r.seatCtx, 0)
+	}
+	r.created = append(r.created, i)
+	r.index.put(k, i)
 	if ctx == 0 {
 		for int(w)+1 >= len(r.first) {
 			r.first = append(r.first, -1)
 		}
-		r.first[w+1] = int32(len(r.seats))
+		r.first[w+1] = i
 	}
 	// Most dishes never have more than two table sizes: give each room
-	// for two from a shared slab (or a dropped seat's), so creating a dish
-	// seldom allocates.
+	// for two from a shared slab (or a released seat's), so creating a
+	// dish seldom allocates.
 	var hist []sizeCount
 	if n := len(r.free); n > 0 {
 		hist, r.free = r.free[n-1][:0], r.free[:n-1]
@@ -82,30 +95,59 @@ func (r *restaurants) seating(ctx int32, w WordType, create bool) *dishSeating {
 		}
 		hist, r.slab = r.slab[:0:2], r.slab[2:]
 	}
-	r.seats = append(r.seats, dishSeating{hist: hist})
-	r.dishes = append(r.dishes, w)
-	r.seatCtx = append(r.seatCtx, ctx)
-	return &r.seats[len(r.seats)-1]
+	r.seats[i] = dishSeating{hist: hist}
+	r.dishes[i] = w
+	r.seatCtx[i] = ctx
+	return &r.seats[i]
 }
 
-// dropSeats forgets the seats created since there were n, which must all
-// be empty: after a rejected proposal, so that (context, dish) pairs that
-// were only proposed do not pile up in the index.
+// markSeats starts a new record of created seats and returns its mark:
+// everything created before is kept by dropSeats.
+func (r *restaurants) markSeats() int {
+	r.created = r.created[:0]
+	return 0
+}
+
+// dropSeats releases the seats created since mark n, which must all be
+// empty: after a rejected proposal, so that (context, dish) pairs that were
+// only proposed do not pile up in the index.
 func (r *restaurants) dropSeats(n int) {
-	for i := len(r.seats) - 1; i >= n; i-- {
-		ds := &r.seats[i]
-		if ds.customers != 0 {
+	for k := len(r.created) - 1; k >= n; k-- {
+		i := r.created[k]
+		if r.seats[i].customers != 0 {
 			panic("segment: dropping a seat with customers")
 		}
-		ctx, w := r.seatCtx[i], r.dishes[i]
-		r.index.del(seatKey(ctx, w))
-		if ctx == 0 {
-			r.first[w+1] = -1
-		}
+		r.release(i)
+	}
+	r.created = r.created[:n]
+}
+
+// release frees seat slot i, which has no customers, for reuse.
+func (r *restaurants) release(i int32) {
+	ds := &r.seats[i]
+	ctx, w := r.seatCtx[i], r.dishes[i]
+	r.index.del(seatKey(ctx, w))
+	if ctx == 0 {
+		r.first[w+1] = -1
+	}
+	if cap(ds.hist) > 0 {
 		r.free = append(r.free, ds.hist[:0])
 	}
-	if n < len(r.seats) {
-		r.seats, r.dishes, r.seatCtx = r.seats[:n], r.dishes[:n], r.seatCtx[:n]
+	*ds = dishSeating{}
+	r.freeSeats = append(r.freeSeats, i)
+}
+
+// releaseEmpty frees the seats that changes in j left without customers,
+// once those changes are kept (an accepted proposal): a seat exists only
+// while its (context, dish) pair has customers or is being proposed.
+func (j *journal) releaseEmpty() {
+	for _, e := range j.entries {
+		if e.add {
+			continue
+		}
+		if i, ok := e.r.index.get(seatKey(e.ctx, e.w)); ok && e.r.seats[i].customers == 0 {
+			e.r.release(i)
+		}
 	}
 }
 

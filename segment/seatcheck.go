@@ -9,8 +9,8 @@ func (r *restaurants) check() error {
 	if len(r.customers) != len(r.tables) {
 		return fmt.Errorf("%d customer totals but %d table totals", len(r.customers), len(r.tables))
 	}
-	if len(r.dishes) != len(r.seats) || r.index.len() != len(r.seats) {
-		return fmt.Errorf("%d seatings, %d dishes, %d index entries", len(r.seats), len(r.dishes), r.index.len())
+	if len(r.dishes) != len(r.seats) || r.index.len() != len(r.seats)-len(r.freeSeats) {
+		return fmt.Errorf("%d seatings (%d free), %d dishes, %d index entries", len(r.seats), len(r.freeSeats), len(r.dishes), r.index.len())
 	}
 	customers := make([]int32, len(r.customers))
 	tables := make([]int32, len(r.tables))

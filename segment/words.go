@@ -72,10 +72,10 @@ func (m *Words) Intern(start, end int) WordType {
 // mark records how many types and seats there are, so that a rejected
 // proposal can be rolled back with forget; marks is reused.
 func (m *Words) mark(marks []int) []int {
-	marks = append(marks[:0], m.Types.Len(), len(m.uni.seats), len(m.bi.seats))
+	marks = append(marks[:0], m.Types.Len(), m.uni.markSeats(), m.bi.markSeats())
 	if nb := m.ngram(); nb != nil {
 		for _, r := range nb.levels {
-			marks = append(marks, len(r.seats))
+			marks = append(marks, r.markSeats())
 		}
 	}
 	return marks

@@ -141,6 +141,7 @@ func (g *WordsGibbs) step(u, i, us, ue int, temperature float64, rng *rand.Rand)
 		}
 		b[i] = !b[i]
 		g.accepts++
+		g.journal.releaseEmpty()
 		return
 	}
 	g.journal.undo()
