@@ -151,6 +151,12 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 		if st.Groups == nil {
 			st.Groups = append([]bool(nil), st.Boundary...)
 		}
+		for i, g := range st.Groups {
+			// A collocation starts at a word boundary; a state whose
+			// boundaries were set from elsewhere (a reference
+			// segmentation) keeps only the group starts that still are.
+			st.Groups[i] = g && st.Boundary[i]
+		}
 		cm := NewCollocations(c, PitmanYor{st.Hyper.Discount0, st.Hyper.Alpha0}, PitmanYor{st.Hyper.Discount1, st.Hyper.Alpha1},
 			UniformBase{WordEnd: st.Hyper.WordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}, st.Hyper.GroupEnd)
 		cm.Rho = cfg.Rho

@@ -228,3 +228,18 @@ func TestRunStopsWhenConverged(t *testing.T) {
 		t.Errorf("chains in different modes stopped at iteration %d", d.Chains[0].Iteration)
 	}
 }
+
+// TestCollocationStartFromOtherBoundaries: a chain state whose word
+// boundaries were replaced (benchtable -start gold sets a reference
+// segmentation) keeps only the collocation starts that are still word
+// boundaries, instead of failing.
+func TestCollocationStartFromOtherBoundaries(t *testing.T) {
+	c := syntheticCorpus(t, 40)
+	cfg := runConfig("collocation")
+	cfg.Chains = 1
+	st := InitialState(c, cfg, 0)
+	st.Boundary = NewSegmentation(c).Boundary // one word per utterance
+	if _, err := Run(context.Background(), c, cfg, []*ChainState{st}, RunOptions{}); err != nil {
+		t.Fatal(err)
+	}
+}

@@ -101,7 +101,7 @@ type runConfig struct {
 func parseFlags(args []string, stderr io.Writer) (*options, error) {
 	fs := flag.NewFlagSet("benchtable", flag.ContinueOnError)
 	fs.SetOutput(stderr)
-	configs := fs.String("configs", "unigram/boundary,bigram/boundary,bigram/blocked", "comma-separated `MODEL/SAMPLER[/BASE]` configurations (models unigram, bigram; samplers boundary, blocked; bases uniform, ngram)")
+	configs := fs.String("configs", "unigram/boundary,bigram/boundary,bigram/blocked", "comma-separated `MODEL/SAMPLER[/BASE]` configurations (models unigram, bigram, collocation (blocked only); samplers boundary, blocked; bases uniform, ngram)")
 	iterations := fs.Int("iterations", 200, "sweeps per chain")
 	burnin := fs.Int("burnin", -1, "sweeps of burn-in, annealed (default 4/5 of -iterations)")
 	chains := fs.Int("chains", 1, "chains per run (run in parallel and pooled)")
