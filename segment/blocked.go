@@ -239,11 +239,17 @@ func (g *BlockedSampler) resample(u, us, ue int, temperature float64, rng *rand.
 // maxLen returns the longest word the proposal allows in [us, ue): the
 // sampler's limit, or longer where locks join more units.
 func (g *BlockedSampler) maxLen(us, ue int) int {
-	K := g.MaxWordLength
+	return longestProposed(g.Seg.Corpus, g.MaxWordLength, us, ue)
+}
+
+// longestProposed returns the longest word a blocked proposal may make in
+// the utterance [us, ue) of c under the word-length limit (0: none): the
+// limit, or longer where locks join more units.
+func longestProposed(c *Corpus, limit, us, ue int) int {
+	K := limit
 	if K <= 0 || K > ue-us {
 		K = ue - us
 	}
-	c := g.Seg.Corpus
 	if c.Locks == nil {
 		return K
 	}

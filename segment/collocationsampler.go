@@ -149,7 +149,7 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 	m := g.Model
 	c := m.Corpus
 	L := ue - us
-	Kw := g.maxWordLen(us, ue)
+	Kw := longestProposed(c, g.MaxWordLength, us, ue)
 	Kg := max(min(MaxCollocationLength, L), Kw)
 	inv := 1 / temperature
 
@@ -426,12 +426,6 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	}
 	jw, fw := g.analysisWeights(a, g.ends, Kw, us, newW)
 	return math.Log((jw + fw) / (join + fresh))
-}
-
-// maxWordLen returns the longest word the proposal allows in [us, ue).
-func (g *CollocationSampler) maxWordLen(us, ue int) int {
-	b := BlockedSampler{Seg: g.Seg, MaxWordLength: g.MaxWordLength}
-	return b.maxLen(us, ue)
 }
 
 // relabel draws a new analysis for every collocation table, in dish
