@@ -15,12 +15,13 @@ import (
 //     analysis from an inner lattice over its words, all under the
 //     predictive probabilities of the rest of the corpus; a
 //     Metropolis-Hastings test corrects for repeats within the utterance;
-//   - relabelling of every collocation table: the table's words are
-//     removed, a new analysis of its string is drawn from the word level
-//     and accepted by a Metropolis-Hastings test, and the table's tokens
-//     all take it. Without this move a table keeps the analysis it opened
-//     with for as long as it has customers, and the sampler hardly mixes
-//     (Johnson & Goldwater 2009, table label resampling).
+//   - relabelling of collocation tables, as many as there are, each chosen
+//     uniformly: the table's words are removed, a new analysis of its
+//     string is drawn from the word level and accepted by a
+//     Metropolis-Hastings test, and the table's tokens all take it.
+//     Without this move a table keeps the analysis it opened with for as
+//     long as it has customers, and the sampler hardly mixes (Johnson &
+//     Goldwater 2009, table label resampling).
 //
 // Relabelling is skipped on corpora with locks, whose tokens of one string
 // may allow different analyses.
@@ -428,8 +429,9 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	return math.Log((jw + fw) / (join + fresh))
 }
 
-// relabel draws a new analysis for every collocation table, in dish
-// order, each accepted by a Metropolis-Hastings test.
+// relabel proposes new analyses for collocation tables, as many times as
+// there are tables, each time for a table chosen uniformly, each proposal
+// accepted by a Metropolis-Hastings test.
 func (g *CollocationSampler) relabel(temperature float64, rng *rand.Rand) {
 	m := g.Model
 	// Index the collocation tokens by dish, by their first unit.
