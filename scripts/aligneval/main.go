@@ -50,6 +50,7 @@ import (
 	"strings"
 	"sync"
 	"time"
+	"unicode/utf8"
 
 	"github.com/juncture-project/juncture/align"
 	"github.com/juncture-project/juncture/segment"
@@ -71,6 +72,7 @@ type options struct {
 	procs              int
 	glossMin, minStem  int
 	glossesOnly        bool
+	nuclei, pitmanYor  bool
 	commandLine        string
 }
 
@@ -170,6 +172,8 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&o.stopWords, "stop-words", "", "English words to drop from the translations, one per line, from `FILE`")
 	fs.StringVar(&o.out, "out", "", "write the markdown report to `FILE` (atomically) instead of standard output")
 	fs.StringVar(&o.details, "details", "", "write how each type of the gold segmentation's lexicon was judged to `FILE` (TSV)")
+	fs.BoolVar(&o.nuclei, "nuclei", false, "make each language's IPA vowel letters (the units of its corpus that begin with one) syllable nuclei: every word must hold one")
+	fs.BoolVar(&o.pitmanYor, "pitman-yor", false, "sample Pitman-Yor discounts instead of fixing them at 0")
 	fs.BoolVar(&o.glossesOnly, "glosses-only", false, "judge the glosses of the gold segmentation only; learn nothing")
 	fs.Usage = func() {
 		fmt.Fprintf(fs.Output(), "usage: aligneval [flags]\n\nLearns each UDHR corpus with and without the translation prior and writes a markdown report.\n\n")
@@ -455,6 +459,12 @@ func runAll(ctx context.Context, o *options, settings []Setting, langs []*Langua
 // runOne learns l under s with one seed and scores the result.
 func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, seed uint64) (Outcome, error) {
 	cfg := s.config(o, seed)
+	if o.nuclei {
+		cfg.Nuclei = ipaVowels(l.Corpus)
+	}
+	if o.pitmanYor {
+		cfg.Fixed.Discount0, cfg.Fixed.Discount1 = false, false
+	}
 	var opts segment.RunOptions
 	if !s.baseline() {
 		opts.Factor = translationFactor(l.Tokens, cfg, s.Direction)
@@ -524,4 +534,20 @@ func (p productFactor) Delta(u int, words []int32) float64 {
 func (p productFactor) Set(u int, words []int32) {
 	p[0].Set(u, words)
 	p[1].Set(u, words)
+}
+
+// ipaVowelLetters are the vowel letters of the IPA chart (International
+// Phonetic Association), with the r-coloured ɚ and ɝ.
+const ipaVowelLetters = "iyɨʉɯuɪʏʊeøɘɵɤoəɛœɜɞʌɔæɐaɶɑɒɚɝ"
+
+// ipaVowels returns the units of c that begin with an IPA vowel letter,
+// such as a or aː: the nuclei of -nuclei.
+func ipaVowels(c *segment.Corpus) []string {
+	var out []string
+	for _, u := range c.Inventory {
+		if r, _ := utf8.DecodeRuneInString(u); strings.ContainsRune(ipaVowelLetters, r) {
+			out = append(out, u)
+		}
+	}
+	return out
 }

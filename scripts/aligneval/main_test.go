@@ -11,6 +11,7 @@ import (
 	"testing"
 
 	"github.com/juncture-project/juncture/align"
+	"github.com/juncture-project/juncture/segment"
 )
 
 func TestSummarize(t *testing.T) {
@@ -160,6 +161,25 @@ func TestProductFactor(t *testing.T) {
 		}
 		if got, want := rv.LogProb(u), rv.Model().LogProb(u, words[u]); math.Abs(got-want) > 1e-9 {
 			t.Errorf("line %d: reverse total %v, from scratch %v", u, got, want)
+		}
+	}
+}
+
+// TestIPAVowels: the units that begin with an IPA vowel letter, long
+// vowels included, and no consonant.
+func TestIPAVowels(t *testing.T) {
+	c, err := segment.ReadCorpus(strings.NewReader("kaːtɛʃiŋ\nbuə"), "t", segment.ReadOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := ipaVowels(c)
+	want := map[string]bool{"aː": true, "ɛ": true, "i": true, "u": true, "ə": true}
+	if len(got) != len(want) {
+		t.Fatalf("ipaVowels = %q, want the units of %v", got, want)
+	}
+	for _, u := range got {
+		if !want[u] {
+			t.Errorf("ipaVowels gave %q, not a vowel unit", u)
 		}
 	}
 }
