@@ -84,17 +84,11 @@ func (m *Collocations) internWord(a, b int) WordType {
 // internDish returns the collocation dish of the span [a, ends[last]) whose
 // words end at ends (ascending, the last one the collocation's end).
 func (m *Collocations) internDish(a int, ends []int) WordType {
-	b := ends[len(ends)-1]
-	s, isNew := m.Strings.Intern(m.Corpus, a, b)
+	s, isNew := m.Strings.Intern(m.Corpus, a, ends[len(ends)-1])
 	if isNew {
 		m.analyses = append(m.analyses, nil)
 	}
-	m.key = binary.LittleEndian.AppendUint32(m.key[:0], uint32(s))
-	prev := a
-	for _, e := range ends {
-		m.key = binary.AppendUvarint(m.key, uint64(e-prev))
-		prev = e
-	}
+	m.setKey(s, a, ends)
 	if d, ok := m.dishIDs[string(m.key)]; ok {
 		return d
 	}
@@ -103,7 +97,7 @@ func (m *Collocations) internDish(a int, ends []int) WordType {
 	m.dishIDs[k] = d
 	m.dishKeys = append(m.dishKeys, k)
 	m.dishString = append(m.dishString, s)
-	prev = a
+	prev := a
 	for _, e := range ends {
 		m.dishWords = append(m.dishWords, m.internWord(prev, e))
 		prev = e
@@ -111,6 +105,29 @@ func (m *Collocations) internDish(a int, ends []int) WordType {
 	m.dishOff = append(m.dishOff, int32(len(m.dishWords)))
 	m.analyses[s] = append(m.analyses[s], d)
 	return d
+}
+
+// findDish returns the dish internDish would return, if it exists,
+// creating nothing.
+func (m *Collocations) findDish(a int, ends []int) (WordType, bool) {
+	s, ok := m.Strings.Lookup(m.Corpus, a, ends[len(ends)-1])
+	if !ok {
+		return 0, false
+	}
+	m.setKey(s, a, ends)
+	d, ok := m.dishIDs[string(m.key)]
+	return d, ok
+}
+
+// setKey sets m.key to the dish key of string type s analysed into words
+// ending at ends: the string type, then each word's length.
+func (m *Collocations) setKey(s WordType, a int, ends []int) {
+	m.key = binary.LittleEndian.AppendUint32(m.key[:0], uint32(s))
+	prev := a
+	for _, e := range ends {
+		m.key = binary.AppendUvarint(m.key, uint64(e-prev))
+		prev = e
+	}
 }
 
 // dishWordsOf returns the words of dish d, in order.
@@ -318,18 +335,7 @@ func (m *Collocations) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 	sampleLevel(m.words, &m.Word, fixed.Discount0, fixed.Alpha0, rng)
 	sampleLevel(m.groups, &m.Group, fixed.Discount1, fixed.Alpha1, rng)
 	if !fixed.WordEnd {
-		tables, extra := 0.0, 0.0
-		for i, w := range m.words.dishes {
-			if t := float64(m.words.seats[i].tables); t > 0 {
-				tables += t
-				extra += t * float64(m.Types.Length[w]-1)
-			}
-		}
-		m.Base.WordEnd = m.Base.drawWordEnd(tables, extra, rng)
-		for t := range m.Types.Length {
-			s := int(m.Types.First[t])
-			m.Types.LogBase[t] = m.Base.LogProb(m.Corpus, s, s+int(m.Types.Length[t]))
-		}
+		m.Base = resampleWordEnd(m.Base, m.words, m.Types, m.Corpus, rng)
 	}
 	if !fixed.GroupEnd {
 		tables, extra := 0.0, 0.0

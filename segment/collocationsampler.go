@@ -322,39 +322,12 @@ func (g *CollocationSampler) analysisWeights(a int, ends []int, Kw, us int, newW
 		fresh *= g.wp[(prev-us)*(Kw+1)+e-prev]
 		prev = e
 	}
-	if d, ok := g.lookupDish(a, ends); ok {
+	if d, ok := g.Model.findDish(a, ends); ok {
 		if ds := m.groups.seating(0, d, false); ds != nil {
 			join = float64(ds.customers) - m.Group.Discount*float64(ds.tables)
 		}
 	}
 	return join, fresh
-}
-
-// lookupDish returns the dish of the analysed span without creating it.
-func (g *CollocationSampler) lookupDish(a int, ends []int) (WordType, bool) {
-	m := g.Model
-	s, ok := m.Strings.Lookup(m.Corpus, a, ends[len(ends)-1])
-	if !ok {
-		return 0, false
-	}
-	for _, d := range m.analyses[s] {
-		ws := m.dishWordsOf(d)
-		if len(ws) != len(ends) {
-			continue
-		}
-		same, prev := true, a
-		for k, e := range ends {
-			if int(m.Types.Length[ws[k]]) != e-prev {
-				same = false
-				break
-			}
-			prev = e
-		}
-		if same {
-			return d, true
-		}
-	}
-	return 0, false
 }
 
 // logAnalysis returns the log probability that the backward pass picks
@@ -443,7 +416,7 @@ func (g *CollocationSampler) relabel(temperature float64, rng *rand.Rand) {
 	}
 	for u := 0; u < m.Corpus.Len(); u++ {
 		g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
-			d, _ := g.lookupDish(a, ends)
+			d, _ := g.Model.findDish(a, ends)
 			g.byDish[d] = append(g.byDish[d], int32(a))
 		})
 	}

@@ -126,25 +126,33 @@ func (m *Words) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 	}
 }
 
-// sampleWordEnd draws p# from its conditional: every unigram-level table
-// of word w contributes p#(1-p#)^(|w|-1) to the base factor, so under a
-// Beta(1,1) prior p# | seating ~ Beta(1 + T, 1 + sum (|w|-1)) over the T
-// word tables (see UniformBase.drawWordEnd for the base with nuclei).
+// sampleWordEnd draws p# from its conditional given the unigram level's
+// tables (see resampleWordEnd).
 func (m *Words) sampleWordEnd(ub UniformBase, rng *rand.Rand) {
+	m.Base = resampleWordEnd(ub, m.uni, m.Types, m.Corpus, rng)
+}
+
+// resampleWordEnd returns ub with p# drawn from its conditional given the
+// tables of r, whose dishes are words (End excluded), and refreshes the
+// types' cached base probabilities. Every table of word w contributes
+// p#(1-p#)^(|w|-1) to the base factor, so under a Beta(1,1) prior p# |
+// seating ~ Beta(1 + T, 1 + sum (|w|-1)) over the T word tables (see
+// UniformBase.drawWordEnd for the base with nuclei).
+func resampleWordEnd(ub UniformBase, r *restaurants, types *Types, c *Corpus, rng *rand.Rand) UniformBase {
 	tables, extra := 0.0, 0.0
-	for i := range m.uni.seats {
-		w := m.uni.dishes[i]
-		if w == End || m.uni.seats[i].tables == 0 {
+	for i := range r.seats {
+		w := r.dishes[i]
+		if w == End || r.seats[i].tables == 0 {
 			continue // End, or an empty seat (perhaps of a forgotten type)
 		}
-		t := float64(m.uni.seats[i].tables)
+		t := float64(r.seats[i].tables)
 		tables += t
-		extra += t * float64(m.Types.Length[w]-1)
+		extra += t * float64(types.Length[w]-1)
 	}
 	ub.WordEnd = ub.drawWordEnd(tables, extra, rng)
-	m.Base = ub
-	for t := range m.Types.Length {
-		s := int(m.Types.First[t])
-		m.Types.LogBase[t] = ub.LogProb(m.Corpus, s, s+int(m.Types.Length[t]))
+	for t := range types.Length {
+		s := int(types.First[t])
+		types.LogBase[t] = ub.LogProb(c, s, s+int(types.Length[t]))
 	}
+	return ub
 }
