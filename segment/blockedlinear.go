@@ -117,6 +117,9 @@ type uniLinear struct {
 	scale, inv    float64
 	r             *restaurants
 	nuc           *Nuclei // a span without a nucleus has base probability 0
+	shapes        *Phonotactics
+	// With shapes, p0 is indexed by syllables, not units, and a span's
+	// new-table probability is p0[k] times its shape probability.
 }
 
 // newUniLinear prepares uniLinear for words of up to K units, with every
@@ -130,7 +133,7 @@ func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64)
 	if cap(g.p0) < K+1 {
 		g.p0, g.p0inv = make([]float64, K+1, 2*(K+1)), make([]float64, K+1, 2*(K+1))
 	}
-	u := uniLinear{p0: g.p0[:K+1], p0inv: g.p0inv[:K+1], r: m.uni, scale: scale, inv: inv, nuc: ub.Nuclei}
+	u := uniLinear{p0: g.p0[:K+1], p0inv: g.p0inv[:K+1], r: m.uni, scale: scale, inv: inv, nuc: ub.Nuclei, shapes: ub.Shapes}
 	tot, tables := m.uni.totals(0)
 	u.d = m.uni.params.Discount
 	u.norm = scale / (tot + m.uni.params.Concentration)
@@ -140,7 +143,9 @@ func (g *BlockedSampler) newUniLinear(ub UniformBase, K int, scale, inv float64)
 	}
 	q := (1 - ub.WordEnd) / float64(ub.Units)
 	v := share * ub.WordEnd / float64(ub.Units)
-	if ub.Nuclei != nil {
+	if ub.Shapes != nil {
+		q, v = 1-ub.WordEnd, share*ub.WordEnd
+	} else if ub.Nuclei != nil {
 		v /= math.Exp(ub.Nuclei.logMass(ub.WordEnd, ub.Units)) // renormalised over words with a nucleus
 	}
 	for k := 1; k <= K; k++ {
@@ -163,7 +168,11 @@ const (
 func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64, seated bool) {
 	k := b - a
 	p0, p0inv := u.p0[k], u.p0inv[k]
-	if u.nuc != nil && !u.nuc.Has(a, b) {
+	if u.shapes != nil {
+		syl, shape := u.shapes.spanProb(m.Corpus, a, b)
+		p0 = u.p0[syl] * shape
+		p0inv = powInv(p0*u.norm, u.inv)
+	} else if u.nuc != nil && !u.nuc.Has(a, b) {
 		p0, p0inv = 0, 0
 	}
 	w = m.lookupSpan(a, b)

@@ -105,13 +105,23 @@ func nucleiFor(c *Corpus, cfg Config) *Nuclei {
 	return nuc
 }
 
+// uniformBaseFor returns the uniform base cfg asks for, with p# wordEnd.
+// Its phonotactics are estimated once per corpus and shared.
+func uniformBaseFor(c *Corpus, cfg Config, wordEnd float64) UniformBase {
+	b := UniformBase{WordEnd: wordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}
+	if cfg.Phonotactics && b.Nuclei != nil {
+		b.Shapes = c.phonotactics(b.Nuclei, cfg.PhonotacticsBeta, cfg.MaxWordLength)
+	}
+	return b
+}
+
 // newModel builds the model cfg asks for with hyperparameters h.
 func newModel(c *Corpus, cfg Config, h Hyper) *Words {
 	order := 1
 	if cfg.Model == "bigram" {
 		order = 2
 	}
-	var base Base = UniformBase{WordEnd: h.WordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}
+	var base Base = uniformBaseFor(c, cfg, h.WordEnd)
 	if cfg.Base == "ngram" {
 		levels := h.Ngram
 		if len(levels) != cfg.NgramOrder {
@@ -158,7 +168,7 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 			st.Groups[i] = g && st.Boundary[i]
 		}
 		cm := NewCollocations(c, PitmanYor{st.Hyper.Discount0, st.Hyper.Alpha0}, PitmanYor{st.Hyper.Discount1, st.Hyper.Alpha1},
-			UniformBase{WordEnd: st.Hyper.WordEnd, Units: max(1, len(c.Inventory)), Nuclei: nucleiFor(c, cfg)}, st.Hyper.GroupEnd)
+			uniformBaseFor(c, cfg, st.Hyper.WordEnd), st.Hyper.GroupEnd)
 		cm.Rho = cfg.Rho
 		m, g = cm, NewCollocationSampler(seg, st.Groups, cm, cfg.MaxWordLength, rng)
 	} else {

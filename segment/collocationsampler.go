@@ -112,7 +112,7 @@ func (g *CollocationSampler) wordLattice(us, ue, Kw int) {
 				if w, ok := m.Types.Lookup(c, us+i, us+i+k); ok {
 					p = m.wordProb(w)
 				} else {
-					p = newW * math.Exp(m.Base.LogProb(c, us+i, us+i+k))
+					p = newW * m.Base.prob(c, us+i, us+i+k)
 				}
 				p *= stay
 			}

@@ -34,6 +34,9 @@ func TestConfigValidate(t *testing.T) {
 		{func(c *Config) { c.WordEnd = 1 }, "word-end"},
 		{func(c *Config) { c.Converge = 0.9 }, "convergence"},
 		{func(c *Config) { c.TranslationWeight = -1 }, "translation weight"},
+		{func(c *Config) { c.Phonotactics = true }, "phonotactics need the syllable nuclei"},
+		{func(c *Config) { c.PhonotacticsBeta = -1 }, "phonotactics beta"},
+		{func(c *Config) { c.PhonotacticsBeta = math.NaN() }, "phonotactics beta"},
 	}
 	for _, tc := range cases {
 		cfg := DefaultConfig()

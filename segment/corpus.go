@@ -70,6 +70,9 @@ type Corpus struct {
 	unitIDs map[string]Unit
 	forms   atomic.Pointer[spanForms] // see IndexSpans
 	indexMu sync.Mutex                // serialises IndexSpans
+
+	shapesMu sync.Mutex
+	shapes   map[string]*Phonotactics // by nucleus list and beta; see phonotactics
 }
 
 // PositionError is an error at a place in a named file: name:line:column.
@@ -314,4 +317,25 @@ func (c *Corpus) LockAt(i int) Lock {
 		return Free
 	}
 	return c.Locks[i]
+}
+
+// phonotactics returns the word-shape model of c for nuclei n and
+// smoothing beta (see NewPhonotactics), built on first use and shared by
+// every later caller (chains, blocks).
+func (c *Corpus) phonotactics(n *Nuclei, beta float64, maxWord int) *Phonotactics {
+	key := fmt.Sprintf("%s|%v", strings.Join(n.Units, " "), beta)
+	c.shapesMu.Lock()
+	defer c.shapesMu.Unlock()
+	if p := c.shapes[key]; p != nil {
+		return p
+	}
+	if maxWord < 1 || maxWord > 32 {
+		maxWord = 32
+	}
+	p := NewPhonotactics(c, n, beta, maxWord)
+	if c.shapes == nil {
+		c.shapes = map[string]*Phonotactics{}
+	}
+	c.shapes[key] = p
+	return p
 }

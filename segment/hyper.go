@@ -147,7 +147,8 @@ func resampleWordEnd(ub UniformBase, r *restaurants, types *Types, c *Corpus, rn
 		}
 		t := float64(r.seats[i].tables)
 		tables += t
-		extra += t * float64(types.Length[w]-1)
+		s := int(types.First[w])
+		extra += t * float64(ub.steps(c, s, s+int(types.Length[w])))
 	}
 	ub.WordEnd = ub.drawWordEnd(tables, extra, rng)
 	for t := range types.Length {

@@ -76,6 +76,14 @@ type Config struct {
 	// Nuclei lists the units that can be syllable nuclei; when not empty,
 	// every word must hold one (see Nuclei). Uniform base only.
 	Nuclei []string `json:"nuclei,omitempty"`
+	// Phonotactics, with Nuclei, gives the uniform base the syllable
+	// skeleton of Phonotactics instead of a length and units: words begin
+	// and end with runs of units seen at utterance edges.
+	Phonotactics bool `json:"phonotactics,omitempty"`
+	// PhonotacticsBeta is the smoothing concentration of the run
+	// distributions of Phonotactics; 0 fits each by maximum marginal
+	// likelihood on its utterance-edge counts.
+	PhonotacticsBeta float64 `json:"phonotactics_beta,omitempty"`
 	// Seed fixes every random choice.
 	Seed uint64 `json:"seed"`
 	// Schedule gives the temperature of each burn-in iteration; nil means
@@ -111,6 +119,10 @@ func (cfg Config) Validate() error {
 	switch {
 	case cfg.Model != "unigram" && cfg.Model != "bigram" && cfg.Model != "collocation":
 		return fmt.Errorf("unknown model %q (want unigram, bigram or collocation)", cfg.Model)
+	case cfg.Phonotactics && len(cfg.Nuclei) == 0:
+		return fmt.Errorf("phonotactics need the syllable nuclei")
+	case cfg.PhonotacticsBeta < 0 || math.IsInf(cfg.PhonotacticsBeta, 0) || math.IsNaN(cfg.PhonotacticsBeta):
+		return fmt.Errorf("phonotactics beta must be a finite number >= 0, got %v", cfg.PhonotacticsBeta)
 	case len(cfg.Nuclei) > 0 && cfg.Base != "uniform":
 		return fmt.Errorf("nuclei work with the uniform base only, not %q", cfg.Base)
 	case cfg.Model == "collocation" && cfg.Base != "uniform":

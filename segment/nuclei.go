@@ -18,6 +18,7 @@ type Nuclei struct {
 	// Others is the number of units of the inventory that are not nuclei.
 	Others int
 	before []int32 // before[i]: nucleus units among the corpus's first i
+	is     []bool  // by unit ID
 }
 
 // NewNuclei indexes c for the given nucleus units. Each must be a unit of
@@ -32,7 +33,7 @@ func NewNuclei(c *Corpus, units []string) (*Nuclei, error) {
 		}
 		is[id] = true
 	}
-	n := &Nuclei{Units: units, Others: len(c.Inventory), before: make([]int32, len(c.Units)+1)}
+	n := &Nuclei{Units: units, Others: len(c.Inventory), before: make([]int32, len(c.Units)+1), is: is}
 	for _, v := range is {
 		if v {
 			n.Others--

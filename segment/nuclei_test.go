@@ -105,16 +105,27 @@ func TestNucleiBaseNormalised(t *testing.T) {
 // lattices fall back to log space with nuclei) for both orders, the
 // boundary sampler, and the collocation sampler.
 func TestNucleiExactPosterior(t *testing.T) {
+	checkRestrictedExact(t, []string{"unigram/blocked", "bigram/blocked", "unigram/boundary", "collocation"}, 3,
+		func(c *Corpus, nuc *Nuclei) UniformBase {
+			return UniformBase{WordEnd: 0.4, Units: len(c.Inventory), Nuclei: nuc}
+		})
+}
+
+// checkRestrictedExact runs each kind of sampler (model/sampler, or
+// collocation) with the base that base makes for nuclei "a" on a tiny
+// corpus through the exact posterior harness, random source seeded with
+// seed.
+func checkRestrictedExact(t *testing.T, kinds []string, seed uint64, base func(*Corpus, *Nuclei) UniformBase) {
 	lines := []string{"bataba", "taba", "ab"}
-	for _, kind := range []string{"unigram/blocked", "bigram/blocked", "unigram/boundary", "collocation"} {
+	for _, kind := range kinds {
 		t.Run(kind, func(t *testing.T) {
 			c := tinyCorpus(t, lines...)
 			nuc, err := NewNuclei(c, []string{"a"})
 			if err != nil {
 				t.Fatal(err)
 			}
-			base := UniformBase{WordEnd: 0.4, Units: len(c.Inventory), Nuclei: nuc}
-			rng := NewRand(3, 1)
+			base := base(c, nuc)
+			rng := NewRand(seed, 1)
 			seg := RandomSegmentation(c, 1, rng)
 			nuc.Repair(seg)
 			var post map[string]float64

@@ -30,8 +30,14 @@ func syntheticCorpus(t testing.TB, n int) *Corpus {
 	return tinyCorpus(t, strings.Split(strings.TrimSpace(b.String()), "\n")...)
 }
 
+// runConfig returns a short run of model; "MODEL/phonotactics" adds the
+// vowels as nuclei and the phonotactic base.
 func runConfig(model string) Config {
 	cfg := DefaultConfig()
+	if m, ok := strings.CutSuffix(model, "/phonotactics"); ok {
+		model = m
+		cfg.Nuclei, cfg.Phonotactics = []string{"a", "e", "i", "o", "u"}, true
+	}
 	cfg.Model = model
 	cfg.Iterations, cfg.Burnin, cfg.Block, cfg.Chains = 40, 20, 7, 2
 	cfg.Seed = 5
@@ -50,7 +56,7 @@ func output(t *testing.T, res *Result) string {
 // depends on the seed only.
 func TestRunIndependentOfThreads(t *testing.T) {
 	c := syntheticCorpus(t, 60)
-	for _, model := range []string{"unigram", "bigram", "collocation"} {
+	for _, model := range []string{"unigram", "bigram", "collocation", "bigram/phonotactics", "collocation/phonotactics"} {
 		cfg := runConfig(model)
 		var outs []string
 		var posts [][]float64
@@ -124,7 +130,7 @@ func TestRunConcurrentOnOneCorpus(t *testing.T) {
 // the checkpointed states and compares with an uninterrupted run.
 func TestRunResumeIdentical(t *testing.T) {
 	c := syntheticCorpus(t, 60)
-	for _, model := range []string{"unigram", "bigram", "collocation"} {
+	for _, model := range []string{"unigram", "bigram", "collocation", "bigram/phonotactics", "collocation/phonotactics"} {
 		cfg := runConfig(model)
 		full, err := Run(context.Background(), c, cfg, nil, RunOptions{})
 		if err != nil {

@@ -59,6 +59,15 @@ func (c *Corpus) IndexSpans(max int) {
 // form returns the form of span [start, end), or -1 if the span is not
 // indexed (too long, or f is nil).
 func (f *spanForms) form(start, end int) int32 {
+	if o := f.entry(start, end); o >= 0 {
+		return f.ids[o]
+	}
+	return -1
+}
+
+// entry returns the index in ids of span [start, end), or -1 if the span
+// is not indexed.
+func (f *spanForms) entry(start, end int) int {
 	if f == nil {
 		return -1
 	}
@@ -67,5 +76,5 @@ func (f *spanForms) form(start, end int) int32 {
 	if k < 1 || k > f.off[start+1]-o {
 		return -1
 	}
-	return f.ids[o+k-1]
+	return int(o + k - 1)
 }

@@ -55,6 +55,7 @@ func TestCommandLineMistakes(t *testing.T) {
 		{[]string{"learn", "-q", "--nuclei", "i u e", "in.txt"}, `nucleus "e" is not a unit of in.txt`},
 		{[]string{"learn", "-q", "--nuclei", "u", "in.txt"}, "in.txt:2: no unit of the line is a nucleus (u)"},
 		{[]string{"learn", "-q", "--nuclei", "a", "--base", "ngram", "in.txt"}, "nuclei work with the uniform base only"},
+		{[]string{"learn", "-q", "--phonotactics", "in.txt"}, "phonotactics need the syllable nuclei"},
 		{[]string{"learn", "-q", "--model", "collocation", "--sampler", "boundary", "in.txt"}, "collocation model has its own blocked sampler"},
 	} {
 		stdout, stderr, code := runStatus(t, dir, tc.args...)
