@@ -79,6 +79,34 @@ func BenchmarkBlockedUnigram(b *testing.B)           { benchmarkBlocked(b, 1, 16
 func BenchmarkBlockedBigram(b *testing.B)            { benchmarkBlocked(b, 2, 16, false) }
 func BenchmarkBlockedBigramUniProposal(b *testing.B) { benchmarkBlocked(b, 2, 16, true) }
 
+// benchmarkCollocation measures one sweep of the collocation sampler
+// (blocked moves and relabelling) with the 16 Klattese vowels as nuclei, as
+// the README's collocation runs use, optionally with the phonotactic base.
+func benchmarkCollocation(b *testing.B, phonotactics bool) {
+	c := benchCorpus(b)
+	nuc, err := NewNuclei(c, strings.Fields("i I e E @ a c o U u ^ x R Y W O"))
+	if err != nil {
+		b.Skip("not the English corpus")
+	}
+	rng := rand.New(rand.NewPCG(1, 2))
+	ub := UniformBase{WordEnd: 0.5, Units: len(c.Inventory), Nuclei: nuc}
+	if phonotactics {
+		ub.Shapes = NewPhonotactics(c, nuc, 0, 24)
+	}
+	seg := RandomSegmentation(c, 0.3, rng)
+	nuc.Repair(seg)
+	m := NewCollocations(c, PitmanYor{0.3, 200}, PitmanYor{0.3, 1000}, ub, 0.5)
+	g := NewCollocationSampler(seg, nil, m, 24, rng)
+	for i := 0; i < 2; i++ {
+		g.Sweep(1, rng)
+	}
+	timeSweeps(b, g, rng, len(c.Units))
+	b.ReportMetric(g.AcceptanceRate(), "accept")
+}
+
+func BenchmarkCollocation(b *testing.B)             { benchmarkCollocation(b, false) }
+func BenchmarkCollocationPhonotactics(b *testing.B) { benchmarkCollocation(b, true) }
+
 // BenchmarkScale measures one sweep at temperature 1 over k shuffled
 // copies of the English corpus (when present), starting from its reference
 // segmentation, for every model and sampler: ns/unit should not grow with

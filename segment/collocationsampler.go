@@ -33,6 +33,8 @@ type CollocationSampler struct {
 	// SkipRelabel turns the relabelling move off, to measure what it buys.
 	SkipRelabel bool
 
+	logSpace bool // always use groupingLog (tests)
+
 	journal journal
 	acceptance
 
@@ -42,8 +44,11 @@ type CollocationSampler struct {
 	newB, newG  []bool
 	wp          []float64 // [m][k]: (1-g) G_w of word [m, m+k)
 	inner       []float64 // [i][l]: sum over analyses of [i, i+l) of prod wp
-	lg          []float64 // [i][l]: tempered log proposal weight of collocation [i, i+l)
-	fwd         []float64
+	lx          []float64 // [i][l]: untempered proposal weight of collocation [i, i+l)
+	lxInv       []float64 // lx to the power 1/T
+	lg          []float64 // [i][l]: its tempered logarithm (log-space lattice only)
+	fwd         []float64 // forward log probabilities, or 1/c_j (linear lattice)
+	alive       []bool
 	byDish      [][]int32
 	tables      []dishTable
 }
@@ -190,66 +195,35 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 		newG, norm = 1, 1
 	}
 	h := m.Rho / 2
-	logCont := math.Log((float64(m.tokens) - float64(m.utterances-1) + h) / (float64(m.tokens) + m.Rho))
+	cont := (float64(m.tokens) - float64(m.utterances-1) + h) / (float64(m.tokens) + m.Rho)
 	baseScale := m.GroupEnd / (1 - m.GroupEnd)
-	g.lg = growFloats(g.lg, (L+1)*(Kg+1))
+	g.lx = growFloats(g.lx, (L+1)*(Kg+1))
 	for i := 0; i < L; i++ {
 		for l := 1; l <= Kg; l++ {
-			v := math.Inf(-1)
+			x := 0.0
 			if i+l <= L && groupEdgeOK(c, us, ue, us+i) && groupEdgeOK(c, us, ue, us+i+l) {
 				p := newG * baseScale * g.inner[i*(Kg+1)+l]
 				if s, ok := m.Strings.Lookup(c, us+i, us+i+l); ok {
 					p += g.joinWeight(s)
 				}
-				if p > 0 {
-					v = inv * (math.Log(p/norm) + logCont)
-				}
+				x = p / norm * cont
 			}
-			g.lg[i*(Kg+1)+l] = v
+			g.lx[i*(Kg+1)+l] = x
 		}
 	}
-	g.fwd = growFloats(g.fwd, L+1)
-	g.fwd[0] = 0
-	for j := 1; j <= L; j++ {
-		acc := math.Inf(-1)
-		for l := 1; l <= min(j, Kg); l++ {
-			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*(Kg+1)+l])
-		}
-		g.fwd[j] = acc
-	}
-
-	// The old state's proposal probability.
-	logQOld := -g.fwd[L]
-	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
-		i, l := a-us, ends[len(ends)-1]-a
-		logQOld += g.lg[i*(Kg+1)+l] + g.logAnalysis(a, ends, Kw, Kg, us, newG*baseScale)
-	})
-
-	// Backward sampling: collocation ends from the right, each one's
-	// analysis, recorded in newB and newG.
 	g.newB = growBools(g.newB, L+1)
 	g.newG = growBools(g.newG, L+1)
 	clear(g.newB)
 	clear(g.newG)
-	logQNew := -g.fwd[L]
-	for j := L; j > 0; {
-		r := math.Log(rng.Float64()) + g.fwd[j]
-		acc := math.Inf(-1)
-		l := 1
-		for ; l < min(j, Kg); l++ {
-			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*(Kg+1)+l])
-			if acc > r && g.lg[(j-l)*(Kg+1)+l] > math.Inf(-1) {
-				break
-			}
-		}
-		for g.lg[(j-l)*(Kg+1)+l] == math.Inf(-1) { // rounding past the last possible one
-			l--
-		}
-		i := j - l
-		logQNew += g.lg[i*(Kg+1)+l]
-		g.newG[i] = true
-		logQNew += g.sampleAnalysis(us+i, us+j, Kw, Kg, us, newG*baseScale, rng)
-		j = i
+	var logQOld, logQNew float64
+	ok := false
+	if !g.logSpace {
+		logQOld, logQNew, ok = g.groupingLinear(u, us, L, Kw, Kg, inv, newG*baseScale, rng)
+	}
+	if !ok {
+		clear(g.newB)
+		clear(g.newG)
+		logQOld, logQNew = g.groupingLog(u, us, L, Kw, Kg, inv, newG*baseScale, rng)
 	}
 
 	// Seat the proposal, multiplying its predictives.
@@ -561,4 +535,146 @@ func (r *restaurants) moveTable(ctx int32, from, to WordType, size int32) {
 		i, _ := r.index.get(seatKey(ctx, from))
 		r.release(i)
 	}
+}
+
+// groupingLinear draws the utterance's collocation ends from the proposal
+// whose collocation [i, i+l) has weight x = g.lx[i][l]^inv, and for each
+// one its analysis, recording them in g.newG and g.newB. It returns the
+// proposal's log probability of the current grouping and analysis (which
+// may be -Inf) and of the drawn one. The forward variables are scaled as in
+// BlockedSampler.unigramProposalLinear: with c_j their sum at j, every
+// scaled variable is 1 where a collocation can end and 0 where none can, a
+// collocation [j-l, j) enters position j's sum with weight x times
+// prod_{j-l<t<j} 1/c_t, and log Z = sum_j log c_j. ok is false, with
+// nothing drawn, if a sum leaves the floating-point range; groupingLog then
+// does the same in log space.
+func (g *CollocationSampler) groupingLinear(u, us, L, Kw, Kg int, inv, newW float64, rng *rand.Rand) (logQOld, logQNew float64, ok bool) {
+	W := Kg + 1
+	x := g.lx
+	if inv != 1 {
+		g.lxInv = growFloats(g.lxInv, len(x))
+		for i, v := range x[:L*W] {
+			g.lxInv[i] = 0
+			if v > 0 {
+				g.lxInv[i] = math.Exp(inv * math.Log(v))
+			}
+		}
+		x = g.lxInv
+	}
+	g.fwd = growFloats(g.fwd, L+1)
+	g.alive = growBools(g.alive, L+1)
+	invc, alive := g.fwd, g.alive
+	invc[0], alive[0] = 1, true
+	logZ := 0.0
+	for j := 1; j <= L; j++ {
+		raw, ratio := 0.0, 1.0
+		for l := 1; l <= min(j, Kg); l++ {
+			if l > 1 {
+				ratio *= invc[j-l+1]
+			}
+			if alive[j-l] {
+				raw += x[(j-l)*W+l] * ratio
+			}
+		}
+		if math.IsInf(ratio, 1) || math.IsInf(raw, 1) || math.IsNaN(raw) {
+			return 0, 0, false
+		}
+		alive[j] = raw > 0
+		invc[j] = 1
+		if alive[j] {
+			invc[j] = 1 / raw
+			logZ += math.Log(raw)
+		}
+	}
+	if !alive[L] {
+		return 0, 0, false
+	}
+
+	// The current grouping's proposal probability.
+	logQOld = -logZ
+	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+		i, l := a-us, ends[len(ends)-1]-a
+		logQOld += math.Log(x[i*W+l]) + g.logAnalysis(a, ends, Kw, Kg, us, newW)
+	})
+
+	// Backward sampling: at j, l has probability x[j-l][l] times
+	// prod_{j-l<t<=j} 1/c_t over the live starts, and these sum to 1.
+	logQNew = -logZ
+	for j := L; j > 0; {
+		r := rng.Float64()
+		ratio := invc[j]
+		l, last := 0, 0
+		for k := 1; k <= min(j, Kg); k++ {
+			if k > 1 {
+				ratio *= invc[j-k+1]
+			}
+			if !alive[j-k] || x[(j-k)*W+k] == 0 {
+				continue
+			}
+			last = k
+			if r -= x[(j-k)*W+k] * ratio; r < 0 {
+				l = k
+				break
+			}
+		}
+		if l == 0 {
+			l = last // rounding
+		}
+		i := j - l
+		logQNew += math.Log(x[i*W+l])
+		g.newG[i] = true
+		logQNew += g.sampleAnalysis(us+i, us+j, Kw, Kg, us, newW, rng)
+		j = i
+	}
+	return logQOld, logQNew, true
+}
+
+// groupingLog is groupingLinear in log space, for utterances whose sums
+// leave the floating-point range.
+func (g *CollocationSampler) groupingLog(u, us, L, Kw, Kg int, inv, newW float64, rng *rand.Rand) (logQOld, logQNew float64) {
+	W := Kg + 1
+	g.lg = growFloats(g.lg, (L+1)*W)
+	for i := range g.lg[:L*W] {
+		g.lg[i] = math.Inf(-1)
+		if g.lx[i] > 0 {
+			g.lg[i] = inv * math.Log(g.lx[i])
+		}
+	}
+	g.fwd = growFloats(g.fwd, L+1)
+	g.fwd[0] = 0
+	for j := 1; j <= L; j++ {
+		acc := math.Inf(-1)
+		for l := 1; l <= min(j, Kg); l++ {
+			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*W+l])
+		}
+		g.fwd[j] = acc
+	}
+
+	logQOld = -g.fwd[L]
+	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+		i, l := a-us, ends[len(ends)-1]-a
+		logQOld += g.lg[i*W+l] + g.logAnalysis(a, ends, Kw, Kg, us, newW)
+	})
+
+	logQNew = -g.fwd[L]
+	for j := L; j > 0; {
+		r := math.Log(rng.Float64()) + g.fwd[j]
+		acc := math.Inf(-1)
+		l := 1
+		for ; l < min(j, Kg); l++ {
+			acc = logAddExp(acc, g.fwd[j-l]+g.lg[(j-l)*W+l])
+			if acc > r && g.lg[(j-l)*W+l] > math.Inf(-1) {
+				break
+			}
+		}
+		for g.lg[(j-l)*W+l] == math.Inf(-1) { // rounding past the last possible one
+			l--
+		}
+		i := j - l
+		logQNew += g.lg[i*W+l]
+		g.newG[i] = true
+		logQNew += g.sampleAnalysis(us+i, us+j, Kw, Kg, us, newW, rng)
+		j = i
+	}
+	return logQOld, logQNew
 }
