@@ -3,12 +3,16 @@
 # data/eval/udhr language, the nuclei are the IPA vowel letters (IPA chart,
 # International Phonetic Association) that begin a unit of its input, a
 # unit being a character with the combining marks and modifier letters
-# after it, as juncture splits units by default. Runs three configurations
+# after it, as juncture splits units by default. Runs each configuration
 # for seeds 1-3, 300 sweeps each, and prints one line per run:
 #
 #   language configuration seed token F, boundary F, lexicon F, seconds
 #
+# A configuration is NAME:FLAGS; a trailing --nuclei gets the language's
+# vowels. Without arguments, the three of the README's nuclei table.
+#
 # Usage: scripts/udhr-nuclei.sh > scripts/results/udhr-nuclei.txt
+#        scripts/udhr-nuclei.sh "colloc-phon:--model collocation --pitman-yor --chains 2 --phonotactics --nuclei"
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
 tmp=$(mktemp -d)
@@ -33,14 +37,18 @@ for line in open(sys.argv[1], encoding="utf-8"):
 print(" ".join(sorted(u for u in units if u[0] in V)))
 PY
 }
+configs=("$@")
+if [[ ${#configs[@]} -eq 0 ]]; then
+	configs=("collocation:--model collocation"
+		"bigram-py-nuclei:--model bigram --pitman-yor --nuclei"
+		"collocation-py-nuclei:--model collocation --pitman-yor --nuclei")
+fi
 for lang in spa tur ind swh fin; do
 	d="$root/data/eval/udhr/$lang"
 	v=$(vowels "$d/input.txt")
 	echo "# $lang nuclei: $v"
 	for seed in 1 2 3; do
-		for cfg in "collocation:--model collocation" \
-			"bigram-py-nuclei:--model bigram --pitman-yor --nuclei" \
-			"collocation-py-nuclei:--model collocation --pitman-yor --nuclei"; do
+		for cfg in "${configs[@]}"; do
 			name=${cfg%%:*}
 			read -r -a args <<<"${cfg#*:}"
 			if [[ ${args[-1]} == --nuclei ]]; then

@@ -73,6 +73,7 @@ type options struct {
 	glossMin, minStem  int
 	glossesOnly        bool
 	nuclei, pitmanYor  bool
+	phonotactics       bool
 	commandLine        string
 }
 
@@ -174,6 +175,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&o.details, "details", "", "write how each type of the gold segmentation's lexicon was judged to `FILE` (TSV)")
 	fs.BoolVar(&o.nuclei, "nuclei", false, "make each language's IPA vowel letters (the units of its corpus that begin with one) syllable nuclei: every word must hold one")
 	fs.BoolVar(&o.pitmanYor, "pitman-yor", false, "sample Pitman-Yor discounts instead of fixing them at 0")
+	fs.BoolVar(&o.phonotactics, "phonotactics", false, "with -nuclei: the syllable-skeleton base whose word edges are learned from utterance edges")
 	fs.BoolVar(&o.glossesOnly, "glosses-only", false, "judge the glosses of the gold segmentation only; learn nothing")
 	fs.Usage = func() {
 		fmt.Fprintf(fs.Output(), "usage: aligneval [flags]\n\nLearns each UDHR corpus with and without the translation prior and writes a markdown report.\n\n")
@@ -461,6 +463,7 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	cfg := s.config(o, seed)
 	if o.nuclei {
 		cfg.Nuclei = ipaVowels(l.Corpus)
+		cfg.Phonotactics = o.phonotactics
 	}
 	if o.pitmanYor {
 		cfg.Fixed.Discount0, cfg.Fixed.Discount1 = false, false
