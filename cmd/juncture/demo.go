@@ -26,6 +26,7 @@ func demoCommand() *cli.Command {
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "model", Value: "bigram", Usage: "word model: unigram, bigram or collocation"},
 			&cli.StringFlag{Name: "nuclei", Value: "i e a o u aː", Usage: "units that can be syllable nuclei, separated by spaces (Kelaru's vowels); every word must hold one. Empty: no constraint"},
+			&cli.BoolFlag{Name: "phonotactics", Usage: "with --nuclei: prefer words that begin and end with the runs of units that begin and end utterances"},
 			&cli.Float64Flag{Name: "translation-weight", Value: 0, Usage: "weight of the English translations as a prior on segmenting (0: used for glosses only)"},
 			&cli.IntFlag{Name: "iterations", Value: 200, Usage: "Gibbs sweeps per chain"},
 			&cli.IntFlag{Name: "chains", Value: 2, Usage: "independent chains, pooled"},
@@ -52,6 +53,7 @@ func runDemo(ctx *cli.Context) error {
 		cfg.Alpha0 = 3000
 	}
 	cfg.Nuclei = strings.Fields(ctx.String("nuclei"))
+	cfg.Phonotactics = ctx.Bool("phonotactics")
 	cfg.Iterations = ctx.Int("iterations")
 	cfg.Burnin = cfg.Iterations * 4 / 5
 	cfg.Chains = ctx.Int("chains")
