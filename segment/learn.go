@@ -81,8 +81,8 @@ type Config struct {
 	// and end with runs of units seen at utterance edges.
 	Phonotactics bool `json:"phonotactics,omitempty"`
 	// PhonotacticsBeta is the smoothing concentration of the run
-	// distributions of Phonotactics; 0 fits each by maximum marginal
-	// likelihood on its utterance-edge counts.
+	// distributions of Phonotactics (DefaultPhonotacticsBeta unless set);
+	// 0 fits each by maximum marginal likelihood on its counts.
 	PhonotacticsBeta float64 `json:"phonotactics_beta,omitempty"`
 	// Seed fixes every random choice.
 	Seed uint64 `json:"seed"`
@@ -102,7 +102,8 @@ type Config struct {
 // DefaultBurnin).
 func DefaultConfig() Config {
 	return Config{Model: "unigram", Base: "uniform", NgramOrder: 3, Sampler: "auto", Proposal: "bigram", MaxWordLength: 24, Iterations: 100, Burnin: DefaultBurnin(100), Chains: 1, Block: 50,
-		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1, Fixed: Fixed{Discount0: true, Discount1: true}, TranslationWeight: 0, TranslationMinCount: 10}
+		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1, Fixed: Fixed{Discount0: true, Discount1: true}, TranslationWeight: 0, TranslationMinCount: 10,
+		PhonotacticsBeta: DefaultPhonotacticsBeta}
 }
 
 // DefaultBurnin returns the default burn-in, the annealed sweeps, for a

@@ -39,7 +39,7 @@ func learnCommand() *cli.Command {
 			&cli.StringFlag{Name: "proposal", Value: d.Proposal, Usage: "blocked sampler with the bigram model: draw whole-utterance proposals from the bigram model itself (bigram), or from its unigram level (unigram: cheaper sweeps, but many more rejections, so slower to mix)"},
 			&cli.StringFlag{Name: "nuclei", Usage: "units that can be syllable nuclei (usually the vowels), separated by spaces, e.g. \"a e i o u\": every word must then hold one (uniform base). Leave unset for languages with words without vowels"},
 			&cli.BoolFlag{Name: "phonotactics", Usage: "with --nuclei: read each word as syllables (a nucleus with the runs of other units around it) and prefer words that begin and end with the runs of units that begin and end utterances"},
-			&cli.Float64Flag{Name: "phonotactics-beta", Usage: "with --phonotactics: how strongly the run distributions are smoothed toward an uninformed one (0: fit each to the corpus by maximum marginal likelihood)"},
+			&cli.Float64Flag{Name: "phonotactics-beta", Value: d.PhonotacticsBeta, Usage: "with --phonotactics: how strongly the run distributions are smoothed toward an uninformed one, in pseudo-counts (0: fit each to the corpus by maximum marginal likelihood)"},
 			&cli.IntFlag{Name: "max-word-length", Value: d.MaxWordLength, Usage: "blocked sampler: longest word proposed, in units (0: no limit)"},
 			&cli.IntFlag{Name: "iterations", Value: d.Iterations, Usage: "sweeps over the corpus per chain (each sampler visits every gap or utterance once per sweep)"},
 			&cli.IntFlag{Name: "burnin", Usage: "sweeps before samples count towards boundary probabilities; annealing from temperature 10 to 1 runs over them", DefaultText: "half of --iterations; with --converge at most 50"},
