@@ -19,7 +19,8 @@ import (
 // is a proper distribution over the words holding a nucleus. Which runs of
 // consonants may begin and end words is what segmentation most needs from
 // phonotactics, and utterance edges are word edges whatever the
-// segmentation (the utterance-edge cue of Brent & Cartwright 1996): P_I is
+// segmentation (the utterance-edge cue of Brent & Cartwright 1996, Cognition
+// 61; cited from memory): P_I is
 // estimated from the runs that begin utterances, P_F from those that end
 // them, P_N from every nucleus and P_M from the runs between two nuclei
 // inside utterances. Each is a Dirichlet-smoothed relative frequency, the
