@@ -17,8 +17,9 @@ import (
 func TestLinearLatticesMatchLogSpace(t *testing.T) {
 	text := "abcabcab\nbcab\ncabcaabc\naabbccabcab\nab\nbbcabca\ncabcabcabcabcabc"
 	for _, order := range []int{1, 2} {
-		for _, d := range []float64{0, 0.4, -1} { // -1: no discount, a base restricted to words with "a"
+		for _, kind := range []float64{0, 0.4, -1, -2} { // a discount; -1: none, a base restricted to words with "a"; -2: and its phonotactics
 			for _, temp := range []float64{1, 2.5, 10} {
+				d := kind
 				c, err := ReadCorpus(strings.NewReader(text), "t", ReadOptions{})
 				if err != nil {
 					t.Fatal(err)
@@ -28,10 +29,13 @@ func TestLinearLatticesMatchLogSpace(t *testing.T) {
 				ub := UniformBase{WordEnd: 0.4, Units: len(c.Inventory)}
 				seg := RandomSegmentation(c, 0.4, rng)
 				if d < 0 {
-					d = 0
 					if ub.Nuclei, err = NewNuclei(c, []string{"a"}); err != nil {
 						t.Fatal(err)
 					}
+					if d == -2 {
+						ub.Shapes = NewPhonotactics(c, ub.Nuclei, 2, 4)
+					}
+					d = 0
 					ub.Nuclei.Repair(seg)
 				}
 				m := NewWords(c, order, PitmanYor{d, 3}, PitmanYor{d / 2, 2}, ub)
