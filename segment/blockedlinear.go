@@ -171,7 +171,6 @@ func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64, seate
 	if u.shapes != nil {
 		syl, shape := u.shapes.spanProb(m.Corpus, a, b)
 		p0 = u.p0[syl] * shape
-		p0inv = powInv(p0*u.norm, u.inv)
 	} else if u.nuc != nil && !u.nuc.Has(a, b) {
 		p0, p0inv = 0, 0
 	}
@@ -181,6 +180,9 @@ func (u *uniLinear) prob(m *Words, a, b int) (w WordType, x, xInv float64, seate
 			x = (p0 + float64(ds.customers) - u.d*float64(ds.tables)) * u.norm
 			return w, x, powInv(x, u.inv), true
 		}
+	}
+	if u.shapes != nil { // the new-table term depends on the span, not its length only
+		p0inv = powInv(p0*u.norm, u.inv)
 	}
 	return w, p0 * u.norm, p0inv, false
 }

@@ -117,12 +117,6 @@ func (p *Phonotactics) models() []*runModel {
 	return []*runModel{&p.initial, &p.final, &p.medial, &p.nucleus}
 }
 
-// Betas returns the concentrations of the initial, final, medial and
-// nucleus run distributions.
-func (p *Phonotactics) Betas() [4]float64 {
-	return [4]float64{p.initial.beta, p.final.beta, p.medial.beta, p.nucleus.beta}
-}
-
 // skeleton reads span [a, b) as C_0 N_1 C_1 ... N_k C_k, calls visit with
 // each part's distribution and span in order, and returns k; it calls
 // nothing if k = 0.
