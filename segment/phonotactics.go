@@ -67,6 +67,18 @@ type runModel struct {
 	total    float64
 	alphabet int  // units a run may hold
 	single   bool // runs of this kind are one unit long
+	// logp caches logProb of every counted run once beta is set (see
+	// freeze): filling the span table asks for the same few thousand runs
+	// millions of times.
+	logp map[string]float64
+}
+
+// freeze fills r.logp; r is read-only afterwards, so chains may share it.
+func (r *runModel) freeze() {
+	r.logp = make(map[string]float64, len(r.counts))
+	for k, n := range r.counts {
+		r.logp[k] = r.rawLogProb(n, len(k)/2)
+	}
 }
 
 // NewPhonotactics estimates the run distributions of c under nuclei n,
@@ -91,6 +103,7 @@ func NewPhonotactics(c *Corpus, n *Nuclei, beta float64, maxSpan int) *Phonotact
 		if beta <= 0 {
 			r.fitBeta()
 		}
+		r.freeze()
 	}
 	c.IndexSpans(maxSpan)
 	f := c.forms.Load()
@@ -186,8 +199,16 @@ func (r *runModel) add(key []byte) {
 
 // logProb returns log P(run) for the run with the given key.
 func (r *runModel) logProb(key []byte) float64 {
-	n := r.counts[string(key)]
-	return math.Log(n+r.beta*math.Exp(r.logG(len(key)/2))) - math.Log(r.total+r.beta)
+	if lp, ok := r.logp[string(key)]; ok {
+		return lp
+	}
+	return r.rawLogProb(r.counts[string(key)], len(key)/2)
+}
+
+// rawLogProb returns log P(run) for a run of the given units counted n
+// times.
+func (r *runModel) rawLogProb(n float64, units int) float64 {
+	return math.Log(n+r.beta*math.Exp(r.logG(units))) - math.Log(r.total+r.beta)
 }
 
 // logG returns log G(run) for a run of units units: a geometric length with
