@@ -49,10 +49,15 @@ type sweeper interface{ Sweep(float64, *rand.Rand) }
 // timeSweeps times b.N sweeps of g at temperature 1 over a corpus of
 // units units, reporting allocations and nanoseconds per unit per sweep.
 func timeSweeps(b *testing.B, g sweeper, rng *rand.Rand, units int) {
+	timeSweepsAt(b, g, rng, units, 1)
+}
+
+// timeSweepsAt is timeSweeps at the given temperature.
+func timeSweepsAt(b *testing.B, g sweeper, rng *rand.Rand, units int, temperature float64) {
 	b.ReportAllocs()
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		g.Sweep(1, rng)
+		g.Sweep(temperature, rng)
 	}
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(units), "ns/unit")
 }
@@ -82,7 +87,7 @@ func BenchmarkBlockedBigramUniProposal(b *testing.B) { benchmarkBlocked(b, 2, 16
 // benchmarkCollocation measures one sweep of the collocation sampler
 // (blocked moves and relabelling) with the 16 Klattese vowels as nuclei, as
 // the README's collocation runs use, optionally with the phonotactic base.
-func benchmarkCollocation(b *testing.B, phonotactics bool) {
+func benchmarkCollocation(b *testing.B, phonotactics bool, temperature float64) {
 	c := benchCorpus(b)
 	nuc, err := NewNuclei(c, strings.Fields("i I e E @ a c o U u ^ x R Y W O"))
 	if err != nil {
@@ -90,22 +95,28 @@ func benchmarkCollocation(b *testing.B, phonotactics bool) {
 	}
 	rng := rand.New(rand.NewPCG(1, 2))
 	ub := UniformBase{WordEnd: 0.5, Units: len(c.Inventory), Nuclei: nuc}
+	c.IndexSpans(MaxCollocationLength) // as learning does for this model
 	if phonotactics {
-		ub.Shapes = NewPhonotactics(c, nuc, 0, 24)
+		ub.Shapes = NewPhonotactics(c, nuc, 0, MaxCollocationLength)
 	}
 	seg := RandomSegmentation(c, 0.3, rng)
 	nuc.Repair(seg)
 	m := NewCollocations(c, PitmanYor{0.3, 200}, PitmanYor{0.3, 1000}, ub, 0.5)
 	g := NewCollocationSampler(seg, nil, m, 24, rng)
 	for i := 0; i < 2; i++ {
-		g.Sweep(1, rng)
+		g.Sweep(temperature, rng)
 	}
-	timeSweeps(b, g, rng, len(c.Units))
+	timeSweepsAt(b, g, rng, len(c.Units), temperature)
 	b.ReportMetric(g.AcceptanceRate(), "accept")
 }
 
-func BenchmarkCollocation(b *testing.B)             { benchmarkCollocation(b, false) }
-func BenchmarkCollocationPhonotactics(b *testing.B) { benchmarkCollocation(b, true) }
+func BenchmarkCollocation(b *testing.B)             { benchmarkCollocation(b, false, 1) }
+func BenchmarkCollocationPhonotactics(b *testing.B) { benchmarkCollocation(b, true, 1) }
+
+// BenchmarkCollocationAnnealed is BenchmarkCollocationPhonotactics at
+// temperature 3, where every grouping-lattice weight is tempered, as in
+// the first sweeps of a run's burn-in.
+func BenchmarkCollocationAnnealed(b *testing.B) { benchmarkCollocation(b, true, 3) }
 
 // BenchmarkScale measures one sweep at temperature 1 over k shuffled
 // copies of the English corpus (when present), starting from its reference

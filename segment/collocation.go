@@ -1,7 +1,6 @@
 package segment
 
 import (
-	"encoding/binary"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -49,24 +48,40 @@ type Collocations struct {
 	tokens        int // collocation tokens
 	utterances    int
 
+	lengthG, logG, log1mG float64 // see logLengthTerm
+
+	// base[w] is exp(Types.LogBase[w]), kept so that the lattices, which
+	// ask for the predictive of every span's word, take no exponential.
+	base []float64
+
 	// Collocation dishes: dishString[d] is the string type of dish d and
-	// its words are dishWords[dishOff[d]:dishOff[d+1]]; analyses[s] lists
-	// the dishes of string type s; dishIDs maps a key (string type, word
-	// lengths) to its dish.
+	// its words are dishWords[dishOff[d]:dishOff[d+1]]. The dishes of
+	// string type s form a list, newest first: firstDish[s] and
+	// nextDish[d] hold a dish plus one, or 0 at the end (see analysesOf).
+	// A dish is found by comparing its word lengths with those of the few
+	// other analyses of its string, with no key to build or map to search,
+	// and a new dish or string allocates nothing once the arrays have
+	// grown.
 	dishString []WordType
 	dishOff    []int32
 	dishWords  []WordType
-	analyses   [][]WordType
-	dishKeys   []string
-	dishIDs    map[string]WordType
-	key        []byte
+	firstDish  []int32
+	nextDish   []int32
+
+	// strCustomers[s] and strTables[s] sum the collocation level's
+	// customers and tables over the dishes of string type s, so the weight
+	// of joining an existing table of s, customers - discount x tables, is
+	// read without visiting its dishes. add and remove keep them; after a
+	// journal undo, recountStrings restores them.
+	strCustomers []int32
+	strTables    []int32
 }
 
 // NewCollocations returns an empty collocation model over c's words.
 func NewCollocations(c *Corpus, word, group PitmanYor, base UniformBase, groupEnd float64) *Collocations {
 	m := &Collocations{Word: word, Group: group, Base: base, GroupEnd: groupEnd, Rho: 2,
 		Corpus: c, Types: NewTypes(), Strings: NewTypes(), utterances: c.Len(),
-		dishOff: []int32{0}, dishIDs: map[string]WordType{}}
+		dishOff: []int32{0}}
 	m.words = newRestaurants(&m.Word)
 	m.groups = newRestaurants(&m.Group)
 	return m
@@ -76,9 +91,19 @@ func NewCollocations(c *Corpus, word, group PitmanYor, base UniformBase, groupEn
 func (m *Collocations) internWord(a, b int) WordType {
 	id, isNew := m.Types.Intern(m.Corpus, a, b)
 	if isNew {
-		m.Types.LogBase[id] = m.Base.LogProb(m.Corpus, a, b)
+		lp := m.Base.LogProb(m.Corpus, a, b)
+		m.Types.LogBase[id] = lp
+		m.base = append(m.base, math.Exp(lp)) // new IDs are always the next
 	}
 	return id
+}
+
+// refreshBase recomputes base after Types.LogBase has changed (a new p#).
+func (m *Collocations) refreshBase() {
+	m.base = m.base[:0]
+	for _, lp := range m.Types.LogBase {
+		m.base = append(m.base, math.Exp(lp))
+	}
 }
 
 // internDish returns the collocation dish of the span [a, ends[last]) whose
@@ -86,16 +111,13 @@ func (m *Collocations) internWord(a, b int) WordType {
 func (m *Collocations) internDish(a int, ends []int) WordType {
 	s, isNew := m.Strings.Intern(m.Corpus, a, ends[len(ends)-1])
 	if isNew {
-		m.analyses = append(m.analyses, nil)
-	}
-	m.setKey(s, a, ends)
-	if d, ok := m.dishIDs[string(m.key)]; ok {
+		m.firstDish = append(m.firstDish, 0)
+		m.strCustomers = append(m.strCustomers, 0)
+		m.strTables = append(m.strTables, 0)
+	} else if d, ok := m.analysisOf(s, a, ends); ok {
 		return d
 	}
 	d := WordType(len(m.dishString))
-	k := string(m.key)
-	m.dishIDs[k] = d
-	m.dishKeys = append(m.dishKeys, k)
 	m.dishString = append(m.dishString, s)
 	prev := a
 	for _, e := range ends {
@@ -103,7 +125,8 @@ func (m *Collocations) internDish(a int, ends []int) WordType {
 		prev = e
 	}
 	m.dishOff = append(m.dishOff, int32(len(m.dishWords)))
-	m.analyses[s] = append(m.analyses[s], d)
+	m.nextDish = append(m.nextDish, m.firstDish[s])
+	m.firstDish[s] = int32(d) + 1
 	return d
 }
 
@@ -114,20 +137,56 @@ func (m *Collocations) findDish(a int, ends []int) (WordType, bool) {
 	if !ok {
 		return 0, false
 	}
-	m.setKey(s, a, ends)
-	d, ok := m.dishIDs[string(m.key)]
-	return d, ok
+	return m.analysisOf(s, a, ends)
 }
 
-// setKey sets m.key to the dish key of string type s analysed into words
-// ending at ends: the string type, then each word's length.
-func (m *Collocations) setKey(s WordType, a int, ends []int) {
-	m.key = binary.LittleEndian.AppendUint32(m.key[:0], uint32(s))
-	prev := a
-	for _, e := range ends {
-		m.key = binary.AppendUvarint(m.key, uint64(e-prev))
-		prev = e
+// analysisOf returns the dish of string type s whose words end at ends
+// (the string starting at a), if there is one.
+func (m *Collocations) analysisOf(s WordType, a int, ends []int) (WordType, bool) {
+next:
+	for d := m.firstAnalysis(s); d >= 0; d = m.nextAnalysis(d) {
+		ws := m.dishWordsOf(d)
+		if len(ws) != len(ends) {
+			continue
+		}
+		e := a
+		for k, w := range ws {
+			if e += int(m.Types.Length[w]); e != ends[k] {
+				continue next
+			}
+		}
+		return d, true
 	}
+	return 0, false
+}
+
+// firstAnalysis returns the newest dish of string type s, or -1.
+func (m *Collocations) firstAnalysis(s WordType) WordType { return WordType(m.firstDish[s] - 1) }
+
+// nextAnalysis returns the dish after d in its string's list, or -1.
+func (m *Collocations) nextAnalysis(d WordType) WordType { return WordType(m.nextDish[d] - 1) }
+
+// recountStrings recomputes strCustomers and strTables of the string
+// types of dishes ds from the collocation level's seating, after a journal
+// undo has restored it behind add's and remove's back.
+func (m *Collocations) recountStrings(ds []WordType) {
+	for _, d := range ds {
+		s := m.dishString[d]
+		var c, t int32
+		for dish := m.firstAnalysis(s); dish >= 0; dish = m.nextAnalysis(dish) {
+			if st := m.groups.seating(0, dish, false); st != nil {
+				c += st.customers
+				t += st.tables
+			}
+		}
+		m.strCustomers[s], m.strTables[s] = c, t
+	}
+}
+
+// joinWeight returns the collocation level's weight of joining an existing
+// table of string type s, summed over its analyses: sum (c - d t).
+func (m *Collocations) joinWeight(s WordType) float64 {
+	return float64(m.strCustomers[s]) - m.Group.Discount*float64(m.strTables[s])
 }
 
 // dishWordsOf returns the words of dish d, in order.
@@ -147,18 +206,18 @@ func (m *Collocations) mark() collocationMarks {
 // rejected proposal has been undone.
 func (m *Collocations) forget(mk collocationMarks) {
 	for d := len(m.dishString) - 1; d >= mk.dishes; d-- {
-		s := m.dishString[d]
-		delete(m.dishIDs, m.dishKeys[d])
-		if int(s) < mk.strings {
-			a := m.analyses[s]
-			m.analyses[s] = a[:len(a)-1] // dishes are appended in order
+		if s := m.dishString[d]; int(s) < mk.strings {
+			m.firstDish[s] = m.nextDish[d] // d, the newest, heads its list
 		}
 	}
+	m.nextDish = m.nextDish[:mk.dishes]
 	m.dishString = m.dishString[:mk.dishes]
-	m.dishKeys = m.dishKeys[:mk.dishes]
 	m.dishOff = m.dishOff[:mk.dishes+1]
 	m.dishWords = m.dishWords[:m.dishOff[mk.dishes]]
-	m.analyses = m.analyses[:mk.strings]
+	m.firstDish = m.firstDish[:mk.strings]
+	m.strCustomers = m.strCustomers[:mk.strings]
+	m.strTables = m.strTables[:mk.strings]
+	m.base = m.base[:mk.types]
 	m.Strings.Truncate(mk.strings)
 	m.Types.Truncate(mk.types)
 	m.words.dropSeats(mk.wordSeats)
@@ -167,12 +226,17 @@ func (m *Collocations) forget(mk collocationMarks) {
 
 // wordProb returns the word level's predictive probability of w.
 func (m *Collocations) wordProb(w WordType) float64 {
-	return m.words.predictive(0, w, math.Exp(m.Types.LogBase[w]))
+	return m.words.predictive(0, w, m.base[w])
 }
 
 // logLengthTerm returns log g(1-g)^(k-1), the base's term for k words.
+// The two logarithms are kept for the last g seen, since every seating
+// asks for them.
 func (m *Collocations) logLengthTerm(k int) float64 {
-	return math.Log(m.GroupEnd) + float64(k-1)*math.Log1p(-m.GroupEnd)
+	if m.GroupEnd != m.lengthG {
+		m.lengthG, m.logG, m.log1mG = m.GroupEnd, math.Log(m.GroupEnd), math.Log1p(-m.GroupEnd)
+	}
+	return m.logG + float64(k-1)*m.log1mG
 }
 
 // logGroupBase returns log of the collocation level's base probability of
@@ -198,6 +262,11 @@ func (m *Collocations) add(d WordType, rng *rand.Rand, j *journal) float64 {
 	m.tokens++
 	lb := m.logGroupBase(d)
 	p, opened := m.groups.addCustomer(0, d, math.Exp(lb), rng, j)
+	s := m.dishString[d]
+	m.strCustomers[s]++
+	if opened {
+		m.strTables[s]++
+	}
 	lp := math.Log(p)
 	if opened {
 		lp += m.addWords(d, rng, j) - lb
@@ -210,6 +279,11 @@ func (m *Collocations) add(d WordType, rng *rand.Rand, j *journal) float64 {
 func (m *Collocations) remove(d WordType, rng *rand.Rand, j *journal) float64 {
 	m.tokens--
 	ds, closed := m.groups.removeCustomer(0, d, rng, j)
+	s := m.dishString[d]
+	m.strCustomers[s]--
+	if closed {
+		m.strTables[s]--
+	}
 	seq := 0.0
 	if closed {
 		seq = m.removeWords(d, rng, j)
@@ -231,7 +305,7 @@ func (m *Collocations) removeWords(d WordType, rng *rand.Rand, j *journal) float
 	for k := len(ws) - 1; k >= 0; k-- {
 		w := ws[k]
 		wds, _ := m.words.removeCustomer(0, w, rng, j)
-		seq += math.Log(m.words.predictiveAt(0, wds, math.Exp(m.Types.LogBase[w])))
+		seq += math.Log(m.words.predictiveAt(0, wds, m.base[w]))
 	}
 	return seq
 }
@@ -242,7 +316,7 @@ func (m *Collocations) addWords(d WordType, rng *rand.Rand, j *journal) float64 
 	ws := m.dishWordsOf(d)
 	seq := m.logLengthTerm(len(ws))
 	for _, w := range ws {
-		pw, _ := m.words.addCustomer(0, w, math.Exp(m.Types.LogBase[w]), rng, j)
+		pw, _ := m.words.addCustomer(0, w, m.base[w], rng, j)
 		seq += math.Log(pw)
 	}
 	return seq
@@ -336,6 +410,7 @@ func (m *Collocations) SampleHyperparameters(fixed Fixed, rng *rand.Rand) {
 	sampleLevel(m.groups, &m.Group, fixed.Discount1, fixed.Alpha1, rng)
 	if !fixed.WordEnd {
 		m.Base = resampleWordEnd(m.Base, m.words, m.Types, m.Corpus, rng)
+		m.refreshBase()
 	}
 	if !fixed.GroupEnd {
 		tables, extra := 0.0, 0.0
@@ -367,6 +442,19 @@ func (m *Collocations) Check() error {
 	})
 	if err := m.words.checkCustomers(want); err != nil {
 		return fmt.Errorf("word level against the collocation tables: %w", err)
+	}
+	for s := range m.firstDish {
+		var c, t int32
+		for d := m.firstAnalysis(WordType(s)); d >= 0; d = m.nextAnalysis(d) {
+			if ds := m.groups.seating(0, d, false); ds != nil {
+				c += ds.customers
+				t += ds.tables
+			}
+		}
+		if c != m.strCustomers[s] || t != m.strTables[s] {
+			return fmt.Errorf("string %d: %d customers and %d tables over its dishes, counted %d and %d",
+				s, c, t, m.strCustomers[s], m.strTables[s])
+		}
 	}
 	if got := int(m.groups.customers0()); got != m.tokens {
 		return fmt.Errorf("%d collocation customers, token count %d", got, m.tokens)

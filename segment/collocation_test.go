@@ -36,7 +36,7 @@ func TestCollocationExactPosterior(t *testing.T) {
 			g := NewCollocationSampler(seg, nil, m, tc.maxLen, rng)
 			g.SkipRelabel = tc.skip
 			counts := exact.Sample(&sweepChain{g, seg, rng}, 100, 10, 20000)
-			if err := m.Check(); err != nil {
+			if err := g.Check(); err != nil {
 				t.Fatal(err)
 			}
 			r := exact.ChiSquare(post, counts)

@@ -1,6 +1,7 @@
 package segment
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 )
@@ -38,8 +39,16 @@ type CollocationSampler struct {
 	journal journal
 	acceptance
 
+	// tokDish[a] is the dish of the collocation starting at unit a, for
+	// every collocation of the current state (other entries are stale):
+	// reading it is cheaper than finding a collocation's dish from its
+	// string and word ends, which every utterance move and the
+	// relabelling index would otherwise do for every collocation.
+	tokDish []WordType
+
 	// Scratch, reused across utterances.
 	old, dishes []WordType
+	starts      []int // starts[k]: the first unit of dishes[k]
 	ends        []int
 	newB, newG  []bool
 	wp          []float64 // [m][k]: (1-g) G_w of word [m, m+k)
@@ -49,8 +58,48 @@ type CollocationSampler struct {
 	lg          []float64 // [i][l]: its tempered logarithm (log-space lattice only)
 	fwd         []float64 // forward log probabilities, or 1/c_j (linear lattice)
 	alive       []bool
-	byDish      [][]int32
-	tables      []dishTable
+	// The relabelling index: the collocation tokens (first units) of dish
+	// d are lists[slot[d]-1].of(arena), slot[d] = 0 for a dish with none.
+	// Every list is a window of one arena, rebuilt each sweep by counting
+	// sort; a list that outgrows its window moves to the arena's end with
+	// twice the room. The arena keeps its buffer, so once it has grown to
+	// what a sweep needs the index allocates nothing, though dish IDs keep
+	// growing.
+	slot   []int32
+	lists  []tokenList
+	arena  []int32
+	tables []dishTable
+}
+
+// tokenList is one dish's collocation tokens in the relabelling index:
+// arena[off : off+n], with room for size.
+type tokenList struct{ off, n, size int32 }
+
+// tokens returns the index in g.lists of dish d's list, giving it an
+// empty one if it has none.
+func (g *CollocationSampler) tokens(d WordType) int {
+	if int(d) >= len(g.slot) {
+		g.slot = append(g.slot, make([]int32, int(d)+1-len(g.slot))...)
+	}
+	if g.slot[d] == 0 {
+		g.lists = append(g.lists, tokenList{off: int32(len(g.arena))})
+		g.slot[d] = int32(len(g.lists))
+	}
+	return int(g.slot[d] - 1)
+}
+
+// reserve makes room in list k for extra more tokens, moving it to the
+// end of the arena if it must.
+func (g *CollocationSampler) reserve(k, extra int) {
+	l := &g.lists[k]
+	if int(l.n)+extra <= int(l.size) {
+		return
+	}
+	size := max(2*(int(l.n)+extra), 4)
+	off := len(g.arena)
+	g.arena = append(g.arena, g.arena[l.off:l.off+l.n]...)
+	g.arena = append(g.arena, make([]int32, size-int(l.n))...) // no allocation once the arena has room
+	l.off, l.size = int32(off), int32(size)
 }
 
 type dishTable struct {
@@ -69,7 +118,32 @@ func NewCollocationSampler(s *Segmentation, groups []bool, m *Collocations, maxW
 		groups = append([]bool(nil), s.Boundary...)
 	}
 	m.AddSegmentation(s, groups, rng)
-	return &CollocationSampler{Seg: s, Groups: groups, Model: m, MaxWordLength: maxWordLength}
+	g := &CollocationSampler{Seg: s, Groups: groups, Model: m, MaxWordLength: maxWordLength,
+		tokDish: make([]WordType, len(s.Corpus.Units))}
+	for u := 0; u < s.Corpus.Len(); u++ {
+		g.ends = groupsOf(s, groups, u, g.ends, func(a int, ends []int) {
+			g.tokDish[a], _ = m.findDish(a, ends)
+		})
+	}
+	return g
+}
+
+// Check verifies the model's invariants (Collocations.Check) and that the
+// sampler's record of each collocation's dish matches the state. Tests
+// call it after sweeps.
+func (g *CollocationSampler) Check() error {
+	if err := g.Model.Check(); err != nil {
+		return err
+	}
+	var err error
+	for u := 0; u < g.Seg.Corpus.Len() && err == nil; u++ {
+		g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
+			if d, ok := g.Model.findDish(a, ends); err == nil && (!ok || d != g.tokDish[a]) {
+				err = fmt.Errorf("collocation at unit %d: recorded dish %d, state's %d (found %v)", a, g.tokDish[a], d, ok)
+			}
+		})
+	}
+	return err
 }
 
 // Sweep resamples every utterance once, in corpus order, then relabels
@@ -132,15 +206,15 @@ func (g *CollocationSampler) wordLattice(us, ue, Kw int) {
 func (g *CollocationSampler) innerFrom(i, L, Kw, Kg int) {
 	row := g.inner[i*(Kg+1) : (i+1)*(Kg+1)]
 	row[0] = 1
-	for l := 1; l <= Kg; l++ {
+	n := min(Kg, L-i)
+	for l := 1; l <= n; l++ {
 		s := 0.0
-		if i+l <= L {
-			for k := 1; k <= min(l, Kw); k++ {
-				s += row[l-k] * g.wp[(i+l-k)*(Kw+1)+k]
-			}
+		for k := 1; k <= min(l, Kw); k++ {
+			s += row[l-k] * g.wp[(i+l-k)*(Kw+1)+k]
 		}
 		row[l] = s
 	}
+	clear(row[n+1:])
 }
 
 // groupEdgeOK reports whether a collocation may start or end at unit a of
@@ -164,7 +238,7 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 	// collocations than proposals make (a random start).
 	g.old = g.old[:0]
 	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
-		g.old = append(g.old, m.internDish(a, ends))
+		g.old = append(g.old, g.tokDish[a])
 		Kg = max(Kg, ends[len(ends)-1]-a)
 		prev := a
 		for _, e := range ends {
@@ -233,6 +307,7 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 	a := us
 	g.ends = g.ends[:0]
 	g.dishes = g.dishes[:0]
+	g.starts = g.starts[:0]
 	for i := us + 1; i <= ue; i++ {
 		if i == ue || g.newB[i-us] || g.newG[i-us] {
 			g.ends = append(g.ends, i)
@@ -240,6 +315,7 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 		if i == ue || g.newG[i-us] {
 			d := m.internDish(a, g.ends)
 			g.dishes = append(g.dishes, d)
+			g.starts = append(g.starts, a)
 			logNew += m.add(d, rng, &g.journal)
 			a, g.ends = i, g.ends[:0]
 		}
@@ -250,18 +326,32 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 
 	g.steps++
 	logRatio := (logNew*inv - logQNew) - (logOld*inv - logQOld)
-	if logRatio >= 0 || math.Log(rng.Float64()) < logRatio {
+	if acceptMH(logRatio, rng) {
 		for i := us + 1; i < ue; i++ {
 			g.Seg.Boundary[i] = g.newB[i-us] || g.newG[i-us]
 			g.Groups[i] = g.newG[i-us]
+		}
+		for k, a := range g.starts {
+			g.tokDish[a] = g.dishes[k]
 		}
 		g.accepts++
 		g.journal.releaseEmpty()
 		return
 	}
 	g.journal.undo()
+	m.recountStrings(g.old)
+	m.recountStrings(g.dishes)
 	m.tokens = tokensBefore
 	m.forget(mk)
+}
+
+// acceptMH reports whether a Metropolis-Hastings test with log ratio
+// logRatio accepts. It always takes one uniform from rng, so that how much
+// of the stream a move uses does not depend on which side of 0 a ratio of
+// 1 rounds to (a proposal drawn from the exact conditional).
+func acceptMH(logRatio float64, rng *rand.Rand) bool {
+	u := rng.Float64()
+	return logRatio >= 0 || math.Log(u) < logRatio
 }
 
 func growBools(s []bool, n int) []bool {
@@ -272,23 +362,13 @@ func growBools(s []bool, n int) []bool {
 }
 
 // joinWeight returns the collocation level's weight of joining an existing
-// table of string type s, summed over its analyses: sum (c - d t).
-func (g *CollocationSampler) joinWeight(s WordType) float64 {
-	m := g.Model
-	d := m.Group.Discount
-	w := 0.0
-	for _, dish := range m.analyses[s] {
-		if ds := m.groups.seating(0, dish, false); ds != nil {
-			w += float64(ds.customers) - d*float64(ds.tables)
-		}
-	}
-	return w
-}
+// table of string type s (see Collocations.joinWeight).
+func (g *CollocationSampler) joinWeight(s WordType) float64 { return g.Model.joinWeight(s) }
 
 // analysisWeights returns, for the collocation [a, ends[last]) analysed
-// into words ending at ends, its dish's join weight (0 if it has no dish)
-// and its new-table weight newW * prod wp.
-func (g *CollocationSampler) analysisWeights(a int, ends []int, Kw, us int, newW float64) (join, fresh float64) {
+// into words ending at ends, the join weight of dish d (0 if d < 0, no
+// dish) and its new-table weight newW * prod wp.
+func (g *CollocationSampler) analysisWeights(a int, ends []int, d WordType, Kw, us int, newW float64) (join, fresh float64) {
 	m := g.Model
 	fresh = newW
 	prev := a
@@ -296,7 +376,7 @@ func (g *CollocationSampler) analysisWeights(a int, ends []int, Kw, us int, newW
 		fresh *= g.wp[(prev-us)*(Kw+1)+e-prev]
 		prev = e
 	}
-	if d, ok := g.Model.findDish(a, ends); ok {
+	if d >= 0 {
 		if ds := m.groups.seating(0, d, false); ds != nil {
 			join = float64(ds.customers) - m.Group.Discount*float64(ds.tables)
 		}
@@ -305,15 +385,15 @@ func (g *CollocationSampler) analysisWeights(a int, ends []int, Kw, us int, newW
 }
 
 // logAnalysis returns the log probability that the backward pass picks
-// the given analysis for the collocation [a, ends[last]).
-func (g *CollocationSampler) logAnalysis(a int, ends []int, Kw, Kg, us int, newW float64) float64 {
+// the given analysis, of dish d, for the collocation [a, ends[last]).
+func (g *CollocationSampler) logAnalysis(a int, ends []int, d WordType, Kw, Kg, us int, newW float64) float64 {
 	m := g.Model
 	b := ends[len(ends)-1]
 	total := newW * g.inner[(a-us)*(Kg+1)+b-a]
 	if s, ok := m.Strings.Lookup(m.Corpus, a, b); ok {
 		total += g.joinWeight(s)
 	}
-	join, fresh := g.analysisWeights(a, ends, Kw, us, newW)
+	join, fresh := g.analysisWeights(a, ends, d, Kw, us, newW)
 	return math.Log((join + fresh) / total)
 }
 
@@ -335,7 +415,7 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	if r := rng.Float64() * (join + fresh); r < join {
 		d := m.Group.Discount
 		var pick WordType = -1
-		for _, dish := range m.analyses[s] {
+		for dish := m.firstAnalysis(s); dish >= 0; dish = m.nextAnalysis(dish) {
 			if ds := m.groups.seating(0, dish, false); ds != nil {
 				r -= float64(ds.customers) - d*float64(ds.tables)
 				pick = dish
@@ -372,7 +452,13 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	for _, e := range g.ends[:len(g.ends)-1] {
 		g.newB[e-us] = true
 	}
-	jw, fw := g.analysisWeights(a, g.ends, Kw, us, newW)
+	var d WordType = -1
+	if known {
+		if x, ok := m.analysisOf(s, a, g.ends); ok {
+			d = x
+		}
+	}
+	jw, fw := g.analysisWeights(a, g.ends, d, Kw, us, newW)
 	return math.Log((jw + fw) / (join + fresh))
 }
 
@@ -381,19 +467,34 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 // accepted by a Metropolis-Hastings test.
 func (g *CollocationSampler) relabel(temperature float64, rng *rand.Rand) {
 	m := g.Model
-	// Index the collocation tokens by dish, by their first unit.
-	for i := range g.byDish {
-		g.byDish[i] = g.byDish[i][:0]
+	// Index the collocation tokens by dish, by their first unit: count
+	// each dish's tokens, lay the lists out in the arena, fill them.
+	clear(g.slot)
+	g.lists = g.lists[:0]
+	g.arena = g.arena[:0]
+	c := m.Corpus
+	forTokens := func(f func(a int, k int)) {
+		for u := 0; u < c.Len(); u++ {
+			start, end := c.Utterance(u)
+			for a := start; a < end; a++ {
+				if a == start || g.Groups[a] {
+					f(a, g.tokens(g.tokDish[a]))
+				}
+			}
+		}
 	}
-	for len(g.byDish) < len(m.dishString) {
-		g.byDish = append(g.byDish, nil)
+	forTokens(func(_ int, k int) { g.lists[k].size++ })
+	total := int32(0)
+	for k := range g.lists {
+		g.lists[k].off = total
+		total += g.lists[k].size
 	}
-	for u := 0; u < m.Corpus.Len(); u++ {
-		g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
-			d, _ := g.Model.findDish(a, ends)
-			g.byDish[d] = append(g.byDish[d], int32(a))
-		})
-	}
+	g.arena = append(g.arena, make([]int32, total)...)
+	forTokens(func(a int, k int) {
+		l := &g.lists[k]
+		g.arena[l.off+l.n] = int32(a)
+		l.n++
+	})
 	g.tables = g.tables[:0]
 	for i, d := range m.groups.dishes {
 		for _, sc := range m.groups.seats[i].hist {
@@ -477,7 +578,7 @@ func (g *CollocationSampler) relabelTable(d WordType, size int32, inv float64, r
 	d2 := m.internDish(a, g.ends)
 	logNew := m.addWords(d2, rng, &g.journal)
 	logRatio := (logNew*inv - logQNew) - (logOld*inv - logQOld)
-	if !(logRatio >= 0 || math.Log(rng.Float64()) < logRatio) {
+	if !acceptMH(logRatio, rng) {
 		g.journal.undo()
 		m.forget(mk)
 		return d, false
@@ -487,12 +588,12 @@ func (g *CollocationSampler) relabelTable(d WordType, size int32, inv float64, r
 		return d, false
 	}
 	m.groups.moveTable(0, d, d2, size)
-	for len(g.byDish) <= int(d2) {
-		g.byDish = append(g.byDish, nil)
-	}
 	// The table's customers are size of d's tokens, uniformly: tokens
 	// are exchangeable given the histogram.
-	toks := g.byDish[d]
+	to := g.tokens(d2)
+	g.reserve(to, int(size)) // before from's tokens are read: it may move the arena
+	from := g.lists[g.tokens(d)]
+	toks := g.arena[from.off : from.off+from.n]
 	for x := 0; x < int(size); x++ {
 		y := x + rng.IntN(len(toks)-x)
 		toks[x], toks[y] = toks[y], toks[x]
@@ -503,9 +604,16 @@ func (g *CollocationSampler) relabelTable(d WordType, size int32, inv float64, r
 		for _, e := range g.ends[:len(g.ends)-1] {
 			g.Seg.Boundary[p+e-a] = true
 		}
-		g.byDish[d2] = append(g.byDish[d2], toks[x])
+		t := &g.lists[to]
+		g.arena[t.off+t.n] = toks[x]
+		t.n++
+		g.tokDish[p] = d2
 	}
-	g.byDish[d] = toks[size:]
+	// d keeps its other tokens: the moved ones were swapped to the front.
+	f := &g.lists[g.tokens(d)]
+	f.off += size
+	f.n -= size
+	f.size -= size
 	return d2, true
 }
 
@@ -556,7 +664,7 @@ func (g *CollocationSampler) groupingLinear(u, us, L, Kw, Kg int, inv, newW floa
 		for i, v := range x[:L*W] {
 			g.lxInv[i] = 0
 			if v > 0 {
-				g.lxInv[i] = math.Exp(inv * math.Log(v))
+				g.lxInv[i] = temperWeight(v, inv)
 			}
 		}
 		x = g.lxInv
@@ -594,7 +702,7 @@ func (g *CollocationSampler) groupingLinear(u, us, L, Kw, Kg int, inv, newW floa
 	logQOld = -logZ
 	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
 		i, l := a-us, ends[len(ends)-1]-a
-		logQOld += math.Log(x[i*W+l]) + g.logAnalysis(a, ends, Kw, Kg, us, newW)
+		logQOld += math.Log(x[i*W+l]) + g.logAnalysis(a, ends, g.tokDish[a], Kw, Kg, us, newW)
 	})
 
 	// Backward sampling: at j, l has probability x[j-l][l] times
@@ -636,8 +744,13 @@ func (g *CollocationSampler) groupingLog(u, us, L, Kw, Kg int, inv, newW float64
 	g.lg = growFloats(g.lg, (L+1)*W)
 	for i := range g.lg[:L*W] {
 		g.lg[i] = math.Inf(-1)
-		if g.lx[i] > 0 {
-			g.lg[i] = inv * math.Log(g.lx[i])
+		if v := g.lx[i]; v > 0 {
+			// The same tempered weights as groupingLinear's: v^inv lies
+			// between v and 1, so it is never out of range.
+			if inv != 1 {
+				v = temperWeight(v, inv)
+			}
+			g.lg[i] = math.Log(v)
 		}
 	}
 	g.fwd = growFloats(g.fwd, L+1)
@@ -653,7 +766,7 @@ func (g *CollocationSampler) groupingLog(u, us, L, Kw, Kg int, inv, newW float64
 	logQOld = -g.fwd[L]
 	g.ends = groupsOf(g.Seg, g.Groups, u, g.ends, func(a int, ends []int) {
 		i, l := a-us, ends[len(ends)-1]-a
-		logQOld += g.lg[i*W+l] + g.logAnalysis(a, ends, Kw, Kg, us, newW)
+		logQOld += g.lg[i*W+l] + g.logAnalysis(a, ends, g.tokDish[a], Kw, Kg, us, newW)
 	})
 
 	logQNew = -g.fwd[L]
