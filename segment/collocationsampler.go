@@ -35,6 +35,7 @@ type CollocationSampler struct {
 	SkipRelabel bool
 
 	logSpace bool // always use groupingLog (tests)
+	general  bool // never use the indexed lattices (tests)
 
 	journal journal
 	acceptance
@@ -184,6 +185,9 @@ func (g *CollocationSampler) wordLattice(us, ue, Kw int) {
 		newW = 1
 	}
 	stay := 1 - m.GroupEnd
+	if g.wordLatticeIndexed(us, ue, Kw, newW, stay) {
+		return
+	}
 	for i := 0; i < L; i++ {
 		for k := 1; k <= Kw; k++ {
 			p := 0.0
@@ -198,6 +202,106 @@ func (g *CollocationSampler) wordLattice(us, ue, Kw int) {
 			g.wp[i*(Kw+1)+k] = p
 		}
 	}
+}
+
+// wordLatticeIndexed is wordLattice for the common case, a corpus without
+// locks whose span index covers every word proposed and a base with
+// phonotactics: it walks each start's span-index entries in order and
+// reads the word type, syllable count and shape from them, where the
+// general loop finds each span's entry twice through function calls. It
+// reports false, doing nothing, when the case does not hold.
+func (g *CollocationSampler) wordLatticeIndexed(us, ue, Kw int, newW, stay float64) bool {
+	m := g.Model
+	c := m.Corpus
+	t, ph := m.Types, m.Base.Shapes
+	f := t.forms
+	if g.general || c.Locks != nil || ph == nil || f == nil || ph.forms != f || f.max < Kw {
+		return false
+	}
+	wordEnd := m.Base.WordEnd
+	L := ue - us
+	W := Kw + 1
+	for i := 0; i < L; i++ {
+		row := g.wp[i*W : (i+1)*W]
+		n := min(Kw, L-i)
+		o := int(f.off[us+i])
+		ids := f.ids[o : o+n]
+		counts := ph.count[o : o+n]
+		shapes := ph.shape[o : o+n]
+		for k := 1; k <= n; k++ {
+			form := ids[k-1]
+			var p float64
+			if t.formHas[form>>6]&(1<<(form&63)) != 0 {
+				p = m.wordProb(WordType(t.formType[form]-1)) * stay
+			} else if syl := counts[k-1]; syl > 0 {
+				// UniformBase.prob's products, in its order, so that both
+				// paths give the same bits.
+				b := shapes[k-1] * wordEnd
+				for range syl - 1 {
+					b *= 1 - wordEnd
+				}
+				p = newW * b * stay
+			}
+			row[k] = p
+		}
+		clear(row[n+1:])
+	}
+	return true
+}
+
+// collocationLattice fills g.lx for the utterance [us, ue): the
+// untempered proposal weight of collocation [i, i+l), a new table's
+// (newW times the inner sum) plus the join weight of its string's tables,
+// over norm, times the utterance-continuation term cont.
+func (g *CollocationSampler) collocationLattice(us, ue, Kg int, newW, norm, cont float64) {
+	m := g.Model
+	c := m.Corpus
+	L := ue - us
+	for i := 0; i < L; i++ {
+		for l := 1; l <= Kg; l++ {
+			x := 0.0
+			if i+l <= L && groupEdgeOK(c, us, ue, us+i) && groupEdgeOK(c, us, ue, us+i+l) {
+				p := newW * g.inner[i*(Kg+1)+l]
+				if s, ok := m.Strings.Lookup(c, us+i, us+i+l); ok {
+					p += g.joinWeight(s)
+				}
+				x = p / norm * cont
+			}
+			g.lx[i*(Kg+1)+l] = x
+		}
+	}
+}
+
+// collocationLatticeIndexed is collocationLattice for a corpus without
+// locks whose span index covers every collocation, walking each start's
+// index entries in order (as wordLatticeIndexed does), with the same
+// products in the same order. It reports false, doing nothing, when the
+// case does not hold.
+func (g *CollocationSampler) collocationLatticeIndexed(us, ue, Kg int, newW, norm, cont float64) bool {
+	m := g.Model
+	t := m.Strings
+	f := t.forms
+	if g.general || m.Corpus.Locks != nil || f == nil || f.max < Kg {
+		return false
+	}
+	L := ue - us
+	W := Kg + 1
+	for i := 0; i < L; i++ {
+		row := g.lx[i*W : (i+1)*W]
+		inner := g.inner[i*W : (i+1)*W]
+		n := min(Kg, L-i)
+		o := int(f.off[us+i])
+		ids := f.ids[o : o+n]
+		for l := 1; l <= n; l++ {
+			p := newW * inner[l]
+			if form := ids[l-1]; t.formHas[form>>6]&(1<<(form&63)) != 0 {
+				p += m.joinWeight(WordType(t.formType[form] - 1))
+			}
+			row[l] = p / norm * cont
+		}
+		clear(row[n+1:])
+	}
+	return true
 }
 
 // innerFrom fills g.inner's row for start i (relative) up to Kg units:
@@ -272,18 +376,8 @@ func (g *CollocationSampler) resample(u, us, ue int, temperature float64, rng *r
 	cont := (float64(m.tokens) - float64(m.utterances-1) + h) / (float64(m.tokens) + m.Rho)
 	baseScale := m.GroupEnd / (1 - m.GroupEnd)
 	g.lx = growFloats(g.lx, (L+1)*(Kg+1))
-	for i := 0; i < L; i++ {
-		for l := 1; l <= Kg; l++ {
-			x := 0.0
-			if i+l <= L && groupEdgeOK(c, us, ue, us+i) && groupEdgeOK(c, us, ue, us+i+l) {
-				p := newG * baseScale * g.inner[i*(Kg+1)+l]
-				if s, ok := m.Strings.Lookup(c, us+i, us+i+l); ok {
-					p += g.joinWeight(s)
-				}
-				x = p / norm * cont
-			}
-			g.lx[i*(Kg+1)+l] = x
-		}
+	if !g.collocationLatticeIndexed(us, ue, Kg, newG*baseScale, norm, cont) {
+		g.collocationLattice(us, ue, Kg, newG*baseScale, norm, cont)
 	}
 	g.newB = growBools(g.newB, L+1)
 	g.newG = growBools(g.newG, L+1)

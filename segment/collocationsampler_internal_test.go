@@ -48,3 +48,65 @@ func TestCollocationLinearMatchesLogSpace(t *testing.T) {
 		}
 	}
 }
+
+// TestIndexedLatticesMatchGeneral checks that the span-index fast paths
+// of the word and collocation lattices give the general loops' values to
+// the bit, with and without the phonotactic base, after sweeps have
+// seated words and collocations.
+func TestIndexedLatticesMatchGeneral(t *testing.T) {
+	text := "abcabcab\nbcab\ncabcaabc\naabbccabcab\nab\nbbcabca\ncabcabcabcabcabc"
+	for _, shapes := range []bool{false, true} {
+		c, err := ReadCorpus(strings.NewReader(text), "t", ReadOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		c.IndexSpans(MaxCollocationLength)
+		rng := rand.New(rand.NewPCG(7, 9))
+		nuc, err := NewNuclei(c, []string{"a"})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ub := UniformBase{WordEnd: 0.4, Units: len(c.Inventory), Nuclei: nuc}
+		if shapes {
+			ub.Shapes = NewPhonotactics(c, nuc, 20, MaxCollocationLength)
+		}
+		seg := RandomSegmentation(c, 0.4, rng)
+		nuc.Repair(seg)
+		m := NewCollocations(c, PitmanYor{0.2, 3}, PitmanYor{0.3, 2}, ub, 0.5)
+		g := NewCollocationSampler(seg, nil, m, 6, rng)
+		for range 5 {
+			g.Sweep(1, rng)
+		}
+		for u := 0; u < c.Len(); u++ {
+			us, ue := c.Utterance(u)
+			L, Kw := ue-us, 6
+			Kg := max(L, Kw)
+			var wp, lx [2][]float64
+			for k, general := range []bool{false, true} {
+				g.general = general
+				g.wordLattice(us, ue, Kw)
+				g.inner = growFloats(g.inner, (L+1)*(Kg+1))
+				for i := 0; i < L; i++ {
+					g.innerFrom(i, L, Kw, Kg)
+				}
+				g.lx = growFloats(g.lx, (L+1)*(Kg+1))
+				if general || !g.collocationLatticeIndexed(us, ue, Kg, 0.3, 1.7, 0.9) {
+					g.collocationLattice(us, ue, Kg, 0.3, 1.7, 0.9)
+				}
+				wp[k] = slices.Clone(g.wp[:L*(Kw+1)])
+				lx[k] = slices.Clone(g.lx[:L*(Kg+1)])
+			}
+			for i := 0; i < L; i++ {
+				wp[1][i*(Kw+1)] = wp[0][i*(Kw+1)] // column 0 is never read
+				lx[1][i*(Kg+1)] = lx[0][i*(Kg+1)]
+			}
+			if !slices.Equal(wp[0], wp[1]) {
+				t.Errorf("shapes %v, utterance %d: word lattices differ:\n%v\n%v", shapes, u, wp[0], wp[1])
+			}
+			if !slices.Equal(lx[0], lx[1]) {
+				t.Errorf("shapes %v, utterance %d: collocation lattices differ:\n%v\n%v", shapes, u, lx[0], lx[1])
+			}
+		}
+		g.general = false
+	}
+}
