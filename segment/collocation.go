@@ -57,7 +57,7 @@ type Collocations struct {
 	// Collocation dishes: dishString[d] is the string type of dish d and
 	// its words are dishWords[dishOff[d]:dishOff[d+1]]. The dishes of
 	// string type s form a list, newest first: firstDish[s] and
-	// nextDish[d] hold a dish plus one, or 0 at the end (see analysesOf).
+	// nextDish[d] hold a dish plus one, or 0 at the end (see firstAnalysis).
 	// A dish is found by comparing its word lengths with those of the few
 	// other analyses of its string, with no key to build or map to search,
 	// and a new dish or string allocates nothing once the arrays have
@@ -172,15 +172,20 @@ func (m *Collocations) nextAnalysis(d WordType) WordType { return WordType(m.nex
 func (m *Collocations) recountStrings(ds []WordType) {
 	for _, d := range ds {
 		s := m.dishString[d]
-		var c, t int32
-		for dish := m.firstAnalysis(s); dish >= 0; dish = m.nextAnalysis(dish) {
-			if st := m.groups.seating(0, dish, false); st != nil {
-				c += st.customers
-				t += st.tables
-			}
-		}
-		m.strCustomers[s], m.strTables[s] = c, t
+		m.strCustomers[s], m.strTables[s] = m.countString(s)
 	}
+}
+
+// countString sums the collocation level's customers and tables over the
+// dishes of string type s.
+func (m *Collocations) countString(s WordType) (customers, tables int32) {
+	for d := m.firstAnalysis(s); d >= 0; d = m.nextAnalysis(d) {
+		if st := m.groups.seating(0, d, false); st != nil {
+			customers += st.customers
+			tables += st.tables
+		}
+	}
+	return customers, tables
 }
 
 // joinWeight returns the collocation level's weight of joining an existing
@@ -444,13 +449,7 @@ func (m *Collocations) Check() error {
 		return fmt.Errorf("word level against the collocation tables: %w", err)
 	}
 	for s := range m.firstDish {
-		var c, t int32
-		for d := m.firstAnalysis(WordType(s)); d >= 0; d = m.nextAnalysis(d) {
-			if ds := m.groups.seating(0, d, false); ds != nil {
-				c += ds.customers
-				t += ds.tables
-			}
-		}
+		c, t := m.countString(WordType(s))
 		if c != m.strCustomers[s] || t != m.strTables[s] {
 			return fmt.Errorf("string %d: %d customers and %d tables over its dishes, counted %d and %d",
 				s, c, t, m.strCustomers[s], m.strTables[s])

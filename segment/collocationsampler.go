@@ -60,7 +60,7 @@ type CollocationSampler struct {
 	fwd         []float64 // forward log probabilities, or 1/c_j (linear lattice)
 	alive       []bool
 	// The relabelling index: the collocation tokens (first units) of dish
-	// d are lists[slot[d]-1].of(arena), slot[d] = 0 for a dish with none.
+	// d are those of lists[slot[d]-1], slot[d] = 0 for a dish with none.
 	// Every list is a window of one arena, rebuilt each sweep by counting
 	// sort; a list that outgrows its window moves to the arena's end with
 	// twice the room. The arena keeps its buffer, so once it has grown to
@@ -263,7 +263,7 @@ func (g *CollocationSampler) collocationLattice(us, ue, Kg int, newW, norm, cont
 			if i+l <= L && groupEdgeOK(c, us, ue, us+i) && groupEdgeOK(c, us, ue, us+i+l) {
 				p := newW * g.inner[i*(Kg+1)+l]
 				if s, ok := m.Strings.Lookup(c, us+i, us+i+l); ok {
-					p += g.joinWeight(s)
+					p += g.Model.joinWeight(s)
 				}
 				x = p / norm * cont
 			}
@@ -455,10 +455,6 @@ func growBools(s []bool, n int) []bool {
 	return s[:n]
 }
 
-// joinWeight returns the collocation level's weight of joining an existing
-// table of string type s (see Collocations.joinWeight).
-func (g *CollocationSampler) joinWeight(s WordType) float64 { return g.Model.joinWeight(s) }
-
 // analysisWeights returns, for the collocation [a, ends[last]) analysed
 // into words ending at ends, the join weight of dish d (0 if d < 0, no
 // dish) and its new-table weight newW * prod wp.
@@ -485,7 +481,7 @@ func (g *CollocationSampler) logAnalysis(a int, ends []int, d WordType, Kw, Kg, 
 	b := ends[len(ends)-1]
 	total := newW * g.inner[(a-us)*(Kg+1)+b-a]
 	if s, ok := m.Strings.Lookup(m.Corpus, a, b); ok {
-		total += g.joinWeight(s)
+		total += g.Model.joinWeight(s)
 	}
 	join, fresh := g.analysisWeights(a, ends, d, Kw, us, newW)
 	return math.Log((join + fresh) / total)
@@ -503,12 +499,12 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	join := 0.0
 	s, known := m.Strings.Lookup(m.Corpus, a, b)
 	if known {
-		join = g.joinWeight(s)
+		join = g.Model.joinWeight(s)
 	}
 	g.ends = g.ends[:0]
+	var pick WordType = -1 // the dish joined, if one is
 	if r := rng.Float64() * (join + fresh); r < join {
 		d := m.Group.Discount
-		var pick WordType = -1
 		for dish := m.firstAnalysis(s); dish >= 0; dish = m.nextAnalysis(dish) {
 			if ds := m.groups.seating(0, dish, false); ds != nil {
 				r -= float64(ds.customers) - d*float64(ds.tables)
@@ -546,8 +542,8 @@ func (g *CollocationSampler) sampleAnalysis(a, b, Kw, Kg, us int, newW float64, 
 	for _, e := range g.ends[:len(g.ends)-1] {
 		g.newB[e-us] = true
 	}
-	var d WordType = -1
-	if known {
+	d := pick // a fresh analysis may still be an existing dish's
+	if d < 0 && known {
 		if x, ok := m.analysisOf(s, a, g.ends); ok {
 			d = x
 		}
