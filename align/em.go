@@ -42,8 +42,8 @@ func (m *Model) Estimate(words [][]int32, iterations int) {
 		return
 	}
 	m.countOccurrences(words, int(maxWord)+2)
-	for range iterations {
-		m.step(words, int(maxWord)+2)
+	for it := range iterations {
+		m.step(words, int(maxWord)+2, m.LeaveOneOut && it == iterations-1)
 	}
 	m.buildRows()
 }
@@ -55,6 +55,7 @@ func (m *Model) Reset() {
 	m.total[0] = 0
 	clear(m.null)
 	m.occurrences = m.occurrences[:0]
+	m.own = m.own[:0]
 	m.buildRows()
 }
 
@@ -76,7 +77,8 @@ func (m *Model) countOccurrences(words [][]int32, columns int) {
 
 // step is one EM iteration: the E-step reads the current table and
 // collects counts into the next-table buffers, which then become current.
-func (m *Model) step(words [][]int32, columns int) {
+// With record, each utterance's own counts are kept for LeaveOneOut.
+func (m *Model) step(words [][]int32, columns int, record bool) {
 	clear(m.nextPair)
 	m.nextTotal = resize(m.nextTotal, columns)
 	clear(m.nextTotal)
@@ -93,14 +95,15 @@ func (m *Model) step(words [][]int32, columns int) {
 		for i, w := range ws {
 			cols[i] = m.column(w)
 		}
-		for _, e := range tokens {
-			var tNull, s float64
-			if !m.NoNull {
-				tNull = m.probIn(null, e)
-				s = tNull
-			}
+		var o *own
+		if record {
+			o = m.recordOwn(u, ws)
+		}
+		for j, e := range tokens {
+			tNull := m.weighted(null, e, j)
+			s := tNull
 			for i := range ws {
-				t[i] = m.probIn(cols[i], e)
+				t[i] = m.weighted(cols[i], e, j)
 				s += t[i]
 			}
 			if s == 0 {
@@ -112,12 +115,24 @@ func (m *Model) step(words [][]int32, columns int) {
 				c := tNull / s
 				m.nextNull[e] += c
 				m.nextTotal[0] += c
+				if o != nil {
+					o.null[j] += c
+					o.nullTotal += c
+				}
 			}
 			for i, w := range ws {
 				c := t[i] / s
 				m.nextPair[pairKey(w, e)] += c
 				m.nextTotal[w+1] += c
+				if o != nil {
+					k := o.index(w)
+					o.count[k*len(tokens)+j] += c
+					o.total[k] += c
+				}
 			}
+		}
+		if o != nil {
+			o.spread(tokens)
 		}
 	}
 	m.pair, m.nextPair = m.nextPair, m.pair

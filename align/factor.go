@@ -16,9 +16,26 @@ type Factor struct {
 // reproducible. Words seen fewer than minOccurrences times predict only the
 // background (see Model.MinOccurrences).
 func NewFactor(translations [][]string, beta float64, words [][]int32, iterations, minOccurrences int) *Factor {
-	m := NewModel(translations, beta)
-	m.Estimate(words, iterations)
-	m.MinOccurrences = minOccurrences
+	return NewFactorWith(translations, words, FactorOptions{Beta: beta, Iterations: iterations, MinOccurrences: minOccurrences})
+}
+
+// FactorOptions are the settings of NewFactorWith: the Model fields of the
+// same names, and the number of EM iterations.
+type FactorOptions struct {
+	Beta           float64
+	Iterations     int
+	MinOccurrences int
+	Size           func(w int32) float64
+	NullSize       float64
+	LeaveOneOut    bool
+}
+
+// NewFactorWith is NewFactor with every setting of the model.
+func NewFactorWith(translations [][]string, words [][]int32, o FactorOptions) *Factor {
+	m := NewModel(translations, o.Beta)
+	m.Size, m.NullSize, m.LeaveOneOut = o.Size, o.NullSize, o.LeaveOneOut
+	m.Estimate(words, o.Iterations)
+	m.MinOccurrences = o.MinOccurrences
 	return &Factor{Sums: m.NewSums(words), model: m}
 }
 

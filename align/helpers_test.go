@@ -87,3 +87,6 @@ func randomMove(rng *rand.Rand, mv mover, u int, ws []int32) (after []int32, pre
 	mv.Join(u, ws[i], ws[i+1], w)
 	return after, predicted
 }
+
+// testSize is a word size for Model.Size: 1 to 4 units, by word id.
+func testSize(w int32) float64 { return 1 + float64(w%4) }

@@ -15,11 +15,14 @@ func TestNormalisation(t *testing.T) {
 	translations := [][]string{{"a", "b"}, {"c"}, {"a", "a", "c"}, {"b"}}
 	words := [][]int32{{0, 1}, {2}, {0, 2, 2}, {1, 3}}
 	for _, tc := range []struct {
-		beta   float64
-		noNull bool
-	}{{0, false}, {0.5, false}, {4, false}, {0.5, true}} {
+		beta          float64
+		noNull, sized bool
+	}{{0, false, false}, {0.5, false, false}, {4, false, false}, {0.5, true, false}, {0.5, false, true}, {0.5, true, true}} {
 		m := NewModel(translations, tc.beta)
 		m.NoNull = tc.noNull
+		if tc.sized {
+			m.Size, m.NullSize = testSize, 1.5
+		}
 		m.Estimate(words, 3)
 		for _, ws := range [][]int32{{0}, {0, 1}, {2, 2, 7}, {1, 3, 0, 2}} {
 			for length := 1; length <= 4; length++ {
@@ -38,8 +41,8 @@ func TestNormalisation(t *testing.T) {
 					seq[i]++
 				}
 				if math.Abs(total-1) > 1e-12 {
-					t.Errorf("beta %g, NoNull %v, words %v: sum over %d-token translations %.15f, want 1",
-						tc.beta, tc.noNull, ws, length, total)
+					t.Errorf("beta %g, NoNull %v, sized %v, words %v: sum over %d-token translations %.15f, want 1",
+						tc.beta, tc.noNull, tc.sized, ws, length, total)
 				}
 			}
 		}
@@ -67,11 +70,20 @@ func objective(m *Model, words [][]int32) float64 {
 // likelihood (Beta = 0) or the log posterior (Beta > 0): Dempster, Laird &
 // Rubin (1977), theorem 1 (number from memory). A wrong E-step or M-step
 // soon breaks it.
+// With Size the E-step weighs each alignment by its prior, so the
+// theorem holds for that model too.
 func TestEMMonotone(t *testing.T) {
-	for _, beta := range []float64{0, 0.3, 5} {
+	for _, tc := range []struct {
+		beta  float64
+		sized bool
+	}{{0, false}, {0.3, false}, {5, false}, {1, true}} {
+		beta, sized := tc.beta, tc.sized
 		rng := rand.New(rand.NewPCG(1, uint64(beta*10)))
 		words, translations := randomCorpus(rng, 80, 25, 20, 5)
 		m := NewModel(translations, beta)
+		if sized {
+			m.Size = testSize
+		}
 		prev := objective(m, words)
 		for it := range 30 {
 			m.Estimate(words, 1)

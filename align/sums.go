@@ -29,6 +29,7 @@ type Sums struct {
 	m       *Model
 	s       []float64 // s[i] is S_j of the token m.tokens[i]
 	k       []int32   // k[u] is the number of words of utterance u
+	z       []float64 // z[u] is the normaliser of utterance u's alignment prior
 	version uint64
 	beta    float64
 	noNull  bool
@@ -37,7 +38,7 @@ type Sums struct {
 // NewSums returns the sums of m for the segmentation words, words[u] being
 // the word ids of utterance u.
 func (m *Model) NewSums(words [][]int32) *Sums {
-	s := &Sums{m: m, s: make([]float64, len(m.tokens)), k: make([]int32, m.Len())}
+	s := &Sums{m: m, s: make([]float64, len(m.tokens)), k: make([]int32, m.Len()), z: make([]float64, m.Len())}
 	s.Recompute(words)
 	return s
 }
@@ -59,19 +60,18 @@ func (s *Sums) Set(u int, ws []int32) {
 	s.check()
 	m := s.m
 	sums := s.s[m.starts[u]:m.starts[u+1]]
+	null := m.columnIn(u, Null)
 	for j, e := range m.Tokens(u) {
-		sums[j] = 0
-		if !m.NoNull {
-			sums[j] = m.Prob(e, Null)
-		}
+		sums[j] = m.weighted(null, e, j)
 	}
 	for _, w := range ws {
-		c := m.column(w)
+		c := m.columnIn(u, w)
 		for j, e := range m.Tokens(u) {
-			sums[j] += m.probIn(c, e)
+			sums[j] += m.weighted(c, e, j)
 		}
 	}
 	s.k[u] = int32(len(ws))
+	s.z[u] = m.norm(ws)
 }
 
 // Words returns the number of words k of utterance u.
@@ -86,7 +86,7 @@ func (s *Sums) LogProb(u int) float64 {
 	for _, sj := range s.s[m.starts[u]:m.starts[u+1]] {
 		lp += math.Log(sj)
 	}
-	return lp - float64(m.starts[u+1]-m.starts[u])*m.logNorm(int(s.k[u]))
+	return lp - float64(m.starts[u+1]-m.starts[u])*math.Log(s.z[u])
 }
 
 // SplitDelta returns the change of log P(e_u | w) if one occurrence of
@@ -125,27 +125,39 @@ func (s *Sums) replace(u int, out [2]int32, nOut int, in [2]int32, nIn int, appl
 	}
 	var cols [4]column
 	for i := range nOut {
-		cols[i] = m.column(out[i])
+		cols[i] = m.columnIn(u, out[i])
 	}
 	for i := range nIn {
-		cols[2+i] = m.column(in[i])
+		cols[2+i] = m.columnIn(u, in[i])
+	}
+	z := s.z[u]
+	if m.Size == nil {
+		z = float64(m.positions(k))
+	} else {
+		for i := range nOut {
+			z -= cols[i].size
+		}
+		for i := range nIn {
+			z += cols[2+i].size
+		}
 	}
 	sums := s.s[m.starts[u]:m.starts[u+1]]
 	tokens := m.Tokens(u)
 	if apply {
 		for j, e := range tokens {
-			sums[j] = s.updated(sums[j], e, &cols, nOut, nIn)
+			sums[j] = s.updated(sums[j], e, j, &cols, nOut, nIn)
 		}
 		s.k[u] = int32(k)
+		s.z[u] = z
 		return 0
 	}
 	// Multiply the ratios S'_j / S_j, each with the normaliser's ratio
-	// (k+1)/(k'+1), and take one logarithm, renormalising before the
-	// product could leave the range of float64.
-	norm := float64(m.positions(int(s.k[u]))) / float64(m.positions(k))
+	// Z/Z' ((k+1)/(k'+1) for Model 1), and take one logarithm,
+	// renormalising before the product could leave the range of float64.
+	norm := s.z[u] / z
 	lp, prod := 0.0, 1.0
 	for j, e := range tokens {
-		prod *= s.updated(sums[j], e, &cols, nOut, nIn) / sums[j] * norm
+		prod *= s.updated(sums[j], e, j, &cols, nOut, nIn) / sums[j] * norm
 		if prod < 0x1p-500 || prod > 0x1p500 {
 			lp += math.Log(prod)
 			prod = 1
@@ -157,13 +169,13 @@ func (s *Sums) replace(u int, out [2]int32, nOut int, in [2]int32, nIn int, appl
 // updated returns S_j for token e after the replacement described by cols
 // (out words in cols[:nOut], in words in cols[2:2+nIn]). A result below 0,
 // which only rounding can give, is 0.
-func (s *Sums) updated(sj float64, e int32, cols *[4]column, nOut, nIn int) float64 {
+func (s *Sums) updated(sj float64, e int32, j int, cols *[4]column, nOut, nIn int) float64 {
 	m := s.m
 	for i := range nOut {
-		sj -= m.probIn(cols[i], e)
+		sj -= m.weighted(cols[i], e, j)
 	}
 	for i := range nIn {
-		sj += m.probIn(cols[2+i], e)
+		sj += m.weighted(cols[2+i], e, j)
 	}
 	return max(sj, 0)
 }
@@ -187,12 +199,9 @@ func (s *Sums) Check(words [][]int32, tol float64) error {
 			return fmt.Errorf("utterance %d: %d words counted, %d given", u, s.k[u], len(ws))
 		}
 		for j, e := range m.Tokens(u) {
-			want := 0.0
-			if !m.NoNull {
-				want = m.Prob(e, Null)
-			}
+			want := m.weighted(m.columnIn(u, Null), e, j)
 			for _, w := range ws {
-				want += m.Prob(e, w)
+				want += m.weighted(m.columnIn(u, w), e, j)
 			}
 			got := s.s[m.starts[u]+j]
 			if math.Abs(got-want) > tol*math.Abs(want) {

@@ -1,6 +1,7 @@
 package align
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -10,14 +11,24 @@ import (
 // and new, and checks every predicted change of log P against LogProb
 // recomputed from scratch, and the running sums against Check.
 func TestSumsRandomMoves(t *testing.T) {
-	for _, tc := range []struct {
-		beta   float64
-		noNull bool
-	}{{0, false}, {0.5, false}, {10, false}, {0.5, true}} {
-		rng := rand.New(rand.NewPCG(7, uint64(tc.beta*10)))
+	for i, tc := range []struct {
+		beta       float64
+		noNull     bool
+		sized, loo bool
+		nullSize   float64
+	}{
+		{beta: 0}, {beta: 0.5}, {beta: 10}, {beta: 0.5, noNull: true},
+		{beta: 0.5, sized: true}, {beta: 0.5, sized: true, nullSize: 2.5},
+		{beta: 0.5, loo: true}, {beta: 0, loo: true}, {beta: 1, sized: true, loo: true},
+	} {
+		rng := rand.New(rand.NewPCG(7, uint64(tc.beta*10)+uint64(i)<<8))
 		words, translations := randomCorpus(rng, 50, 30, 25, 6)
 		m := NewModel(translations, tc.beta)
 		m.NoNull = tc.noNull
+		if tc.sized {
+			m.Size, m.NullSize = testSize, tc.nullSize
+		}
+		m.LeaveOneOut = tc.loo
 		m.Estimate(words, 5)
 		s := m.NewSums(words)
 		for step := range 5000 {
@@ -39,7 +50,7 @@ func TestSumsRandomMoves(t *testing.T) {
 			}
 		}
 		if err := s.Check(words, 1e-9); err != nil {
-			t.Errorf("beta %g: %v", tc.beta, err)
+			t.Errorf("case %d: %v", i, err)
 		}
 		// Re-estimating makes the sums stale; Recompute restores them.
 		m.Estimate(words, 1)
@@ -83,9 +94,18 @@ func TestSumsCheckFails(t *testing.T) {
 // TestNoAllocs checks that the sampler's hot path does not allocate.
 // AllocsPerRun counts allocations, not time.
 func TestNoAllocs(t *testing.T) {
+	for _, sizedLOO := range []bool{false, true} {
+		t.Run(fmt.Sprintf("sized+leave-one-out=%v", sizedLOO), func(t *testing.T) { testNoAllocs(t, sizedLOO) })
+	}
+}
+
+func testNoAllocs(t *testing.T, sizedLOO bool) {
 	rng := rand.New(rand.NewPCG(5, 6))
 	words, translations := randomCorpus(rng, 30, 20, 15, 5)
 	m := NewModel(translations, 1)
+	if sizedLOO {
+		m.Size, m.LeaveOneOut = testSize, true
+	}
 	m.Estimate(words, 3)
 	s := m.NewSums(words)
 	u := 0
