@@ -178,13 +178,13 @@ func runBlock(ctx context.Context, c *Corpus, cfg Config, st *ChainState, progre
 			bs := NewBlockedSampler(seg, wm, cfg.MaxWordLength, rng)
 			bs.UnigramProposal = cfg.Proposal == "unigram"
 			if factor != nil {
-				bs.Factor, bs.Weight = factor(utteranceWords(seg, wm)), cfg.TranslationWeight
+				bs.Factor, bs.Weight = factor(utteranceWords(seg, wm), wm.wordLength), cfg.TranslationWeight
 			}
 			g = bs
 		} else {
 			gs := NewWordsGibbs(seg, wm, rng)
 			if factor != nil {
-				gs.Factor, gs.Weight = factor(utteranceWords(seg, wm)), cfg.TranslationWeight
+				gs.Factor, gs.Weight = factor(utteranceWords(seg, wm), wm.wordLength), cfg.TranslationWeight
 			}
 			g = gs
 		}

@@ -21,9 +21,11 @@ type UtteranceFactor interface {
 }
 
 // FactorBuilder builds the factor for a chain's block from the current
-// segmentation's words per utterance (words[u] are WordType values). It
-// is called from the chain's goroutine and must return a factor of its own.
-type FactorBuilder func(words [][]int32) UtteranceFactor
+// segmentation's words per utterance (words[u] are WordType values);
+// length(w) is the length in units of any WordType the block's sampler
+// uses, including types interned after the call. It is called from the
+// chain's goroutine and must return a factor of its own.
+type FactorBuilder func(words [][]int32, length func(w int32) int) UtteranceFactor
 
 // utteranceWords returns the word types of every utterance of s, interned
 // in m.

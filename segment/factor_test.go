@@ -34,7 +34,9 @@ type logProbTable interface {
 // P(translation_u | words) (align.Factor) or, in Brown et al.'s
 // direction, P(words | translation_u) (align.ReverseFactor, also with its
 // rare-word rule and its ratio to the background); both samplers must
-// reproduce it on tiny parallel corpora. The boundary sampler uses
+// reproduce it on tiny parallel corpora, also with the forward table's
+// alignment prior by word length and with each utterance's own counts
+// left out of the table it is scored with. The boundary sampler uses
 // SplitDelta and JoinDelta, the blocked one Delta and Set.
 func TestTranslationFactorExactPosterior(t *testing.T) {
 	lines := []string{"abab", "ab", "ba"}
@@ -46,12 +48,17 @@ func TestTranslationFactorExactPosterior(t *testing.T) {
 		weight    float64
 		minOcc    int
 		ratio     bool
+		sized     bool // forward: alignment prior by length in units
+		loo       bool // forward: leave each utterance's own counts out
 	}{
-		{"forward", 1, "boundary", 1, 0, false}, {"forward", 1, "blocked", 2, 0, false},
-		{"forward", 2, "boundary", 1, 0, false}, {"forward", 2, "blocked", 0.5, 0, false},
-		{"reverse", 1, "boundary", 1, 0, false}, {"reverse", 1, "blocked", 2, 2, false},
-		{"reverse", 1, "boundary", 1, 2, true}, {"reverse", 2, "boundary", 1, 0, false},
-		{"reverse", 2, "blocked", 0.5, 0, true},
+		{"forward", 1, "boundary", 1, 0, false, false, false}, {"forward", 1, "blocked", 2, 0, false, false, false},
+		{"forward", 2, "boundary", 1, 0, false, false, false}, {"forward", 2, "blocked", 0.5, 0, false, false, false},
+		{"reverse", 1, "boundary", 1, 0, false, false, false}, {"reverse", 1, "blocked", 2, 2, false, false, false},
+		{"reverse", 1, "boundary", 1, 2, true, false, false}, {"reverse", 2, "boundary", 1, 0, false, false, false},
+		{"reverse", 2, "blocked", 0.5, 0, true, false, false},
+		{"forward", 1, "boundary", 1, 0, false, true, false}, {"forward", 2, "blocked", 1, 0, false, true, false},
+		{"forward", 1, "blocked", 1, 0, false, false, true}, {"forward", 2, "boundary", 1, 0, false, false, true},
+		{"forward", 1, "boundary", 2, 0, false, true, true},
 	} {
 		t.Run(fmt.Sprint(tc.direction, i), func(t *testing.T) {
 			c := tinyCorpus(t, lines...)
@@ -72,7 +79,11 @@ func TestTranslationFactorExactPosterior(t *testing.T) {
 				rf := align.NewReverseFactor(translations, 1, ids(seg), 5, tc.minOcc, tc.ratio)
 				f, table = rf, rf.Model()
 			} else {
-				ff := align.NewFactor(translations, 1, ids(seg), 5, tc.minOcc)
+				o := align.FactorOptions{Beta: 1, Iterations: 5, MinOccurrences: tc.minOcc, LeaveOneOut: tc.loo}
+				if tc.sized {
+					o.Size = func(w int32) float64 { return float64(m.Types.Length[w]) }
+				}
+				ff := align.NewFactorWith(translations, ids(seg), o)
 				f, table = ff, ff.Model()
 			}
 			var step func()

@@ -113,6 +113,10 @@ func (m *Words) span(w WordType) (start, end int) {
 	return s, s + int(m.Types.Length[w])
 }
 
+// wordLength returns the length in units of word type w, for a
+// FactorBuilder.
+func (m *Words) wordLength(w int32) int { return int(m.Types.Length[w]) }
+
 // logP0 returns log P0(w) for a word other than End. With an adaptive base
 // it is the base's current predictive probability, cached in
 // Types.LogBase until the base changes.

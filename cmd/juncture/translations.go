@@ -149,7 +149,7 @@ func translationFactor(tokens [][]string, cfg segment.Config) segment.FactorBuil
 	if tokens == nil || cfg.TranslationWeight == 0 {
 		return nil // glosses only: the factor would multiply by 1
 	}
-	return func(words [][]int32) segment.UtteranceFactor {
+	return func(words [][]int32, _ func(int32) int) segment.UtteranceFactor {
 		return align.NewFactor(tokens, 1, words, 10, cfg.TranslationMinCount)
 	}
 }
