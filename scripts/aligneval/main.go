@@ -19,7 +19,10 @@
 // P(words | translation), Brown et al.'s direction), ratio (reverse over
 // the words' background) and both (forward times reverse) are built the
 // same way, from the segmentation at every block with beta 1, 10 EM
-// iterations and min-count.
+// iterations and min-count, as are units (a token aligned to a unit of
+// the utterance, not to a word: align.FactorOptions.Size), loo (each
+// utterance scored with the table without its own counts:
+// LeaveOneOut) and units-loo (both).
 //
 // Glosses come from lexicon.AddGlosses with its defaults on the decoded
 // segmentation. Precision is measured on discovered types seen at least
@@ -30,10 +33,9 @@
 // Output does not depend on -procs: every run has its own random sources
 // (segment.Run), and results are reported in a fixed order.
 //
-// The translation unit is the corpus line, a paragraph. There is no option
-// to split lines into sentences: only 12 of the 60 English lines have a
-// sentence break inside, and the transcripts keep no punctuation to split
-// the other side where the counts agree.
+// The translation unit is the corpus line, a paragraph in data/eval/udhr.
+// scripts/udhr-eval.sh --cut sentences|clauses DIR builds the same
+// corpora cut where both sides have as many pieces; pass DIR as -data.
 package main
 
 import (
@@ -71,6 +73,7 @@ type options struct {
 	iterations, chains int
 	procs              int
 	glossMin, minStem  int
+	nullUnits          float64
 	glossesOnly        bool
 	nuclei, pitmanYor  bool
 	phonotactics       bool
@@ -90,10 +93,13 @@ type Setting struct {
 
 // directions describes the translation factors -direction chooses from.
 var directions = map[string]string{
-	"forward": "IBM Model 1 P(translation | words), as 'juncture learn' builds it (align.NewFactor)",
-	"reverse": "IBM Model 1 P(words | translation), Brown et al.'s direction (align.NewReverseFactor)",
-	"ratio":   "reverse divided by each word's background probability (align.Reverse.Ratio)",
-	"both":    "the product of forward and reverse",
+	"forward":   "IBM Model 1 P(translation | words), as 'juncture learn' builds it (align.NewFactor)",
+	"reverse":   "IBM Model 1 P(words | translation), Brown et al.'s direction (align.NewReverseFactor)",
+	"ratio":     "reverse divided by each word's background probability (align.Reverse.Ratio)",
+	"both":      "the product of forward and reverse",
+	"units":     "forward with each token aligned to a unit of the utterance (or NULL) uniformly, not to a word (align.FactorOptions.Size)",
+	"loo":       "forward with each utterance scored by the table estimated without it (align.FactorOptions.LeaveOneOut)",
+	"units-loo": "units and loo together",
 }
 
 func (s Setting) baseline() bool { return s.Weight == 0 }
@@ -164,7 +170,8 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&samplers, "sampler", "boundary", "samplers, comma-separated (boundary, blocked, auto)")
 	fs.StringVar(&weights, "weights", "0,1", "translation weights, comma-separated; 0 is the run without the prior and is always included")
 	fs.StringVar(&minCounts, "min-count", strconv.Itoa(d.TranslationMinCount), "translation min-counts, comma-separated")
-	fs.StringVar(&dirs, "direction", "forward", "translation factors, comma-separated: forward (P(translation | words)), reverse (P(words | translation)), ratio (reverse over the words' background) or both (forward times reverse)")
+	fs.StringVar(&dirs, "direction", "forward", "translation factors, comma-separated: forward (P(translation | words)), reverse (P(words | translation)), ratio (reverse over the words' background) both (forward times reverse), units (forward, a token aligned to a unit), loo (forward, each utterance scored without its own counts) or units-loo")
+	fs.Float64Var(&o.nullUnits, "null-units", 1, "with -direction units or units-loo: NULL's size in units")
 	fs.IntVar(&o.iterations, "iterations", 300, "sweeps per chain")
 	fs.IntVar(&o.chains, "chains", d.Chains, "chains per run")
 	fs.IntVar(&o.procs, "procs", runtime.GOMAXPROCS(0), "most chains running at once")
@@ -194,7 +201,7 @@ func parseFlags(args []string) (*options, error) {
 	o.directions = splitList(dirs)
 	for _, d := range o.directions {
 		if directions[d] == "" {
-			return nil, fmt.Errorf("-direction: unknown %q (forward, reverse, ratio, both)", d)
+			return nil, fmt.Errorf("-direction: unknown %q (forward, reverse, ratio, both, units, loo, units-loo)", d)
 		}
 	}
 	var err error
@@ -470,7 +477,7 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	}
 	var opts segment.RunOptions
 	if !s.baseline() {
-		opts.Factor = translationFactor(l.Tokens, cfg, s.Direction)
+		opts.Factor = translationFactor(l.Tokens, cfg, s.Direction, o.nullUnits)
 	}
 	res, err := segment.Run(ctx, l.Corpus, cfg, nil, opts)
 	if err != nil {
@@ -493,10 +500,17 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 // (cmd/juncture/translations.go): the table is re-estimated by 10 EM
 // iterations from the segmentation at the start of every block, with
 // smoothing beta = 1. The others are built the same way.
-func translationFactor(tokens [][]string, cfg segment.Config, direction string) segment.FactorBuilder {
+func translationFactor(tokens [][]string, cfg segment.Config, direction string, nullUnits float64) segment.FactorBuilder {
 	minCount := cfg.TranslationMinCount
-	return func(words [][]int32) segment.UtteranceFactor {
+	return func(words [][]int32, length func(int32) int) segment.UtteranceFactor {
 		switch direction {
+		case "units", "loo", "units-loo":
+			o := align.FactorOptions{Beta: 1, Iterations: 10, MinOccurrences: minCount, LeaveOneOut: direction != "units"}
+			if direction != "loo" {
+				o.Size = func(w int32) float64 { return float64(length(w)) }
+				o.NullSize = nullUnits
+			}
+			return align.NewFactorWith(tokens, words, o)
 		case "reverse", "ratio":
 			return align.NewReverseFactor(tokens, 1, words, 10, minCount, direction == "ratio")
 		case "both":
