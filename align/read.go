@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"unicode/utf8"
 
@@ -90,6 +91,19 @@ func dropStopWords(tokens []string, stop map[string]bool) []string {
 		}
 	}
 	return kept
+}
+
+// WithoutStopWords returns a copy of tokens, one token list per
+// utterance, without the tokens in stop. It serves to keep frequent
+// function words out of the translation prior, where they would align
+// with every word, while glosses still see them (a function word's best
+// gloss is often one).
+func WithoutStopWords(tokens [][]string, stop map[string]bool) [][]string {
+	out := make([][]string, len(tokens))
+	for u, toks := range tokens {
+		out[u] = dropStopWords(slices.Clone(toks), stop)
+	}
+	return out
 }
 
 // ReadStopWords reads a stop-word list: one word per line, "#" and the rest

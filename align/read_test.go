@@ -114,3 +114,19 @@ func TestReadStopWords(t *testing.T) {
 		}
 	}
 }
+
+func TestWithoutStopWords(t *testing.T) {
+	tokens := [][]string{{"the", "dog", "of", "the", "house"}, {}, {"the"}, {"cat"}}
+	stop := map[string]bool{"the": true, "of": true}
+	got := WithoutStopWords(tokens, stop)
+	want := [][]string{{"dog", "house"}, {}, {}, {"cat"}}
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("WithoutStopWords = %q, want %q", got, want)
+	}
+	if tokens[0][0] != "the" || len(tokens[0]) != 5 {
+		t.Errorf("input changed: %q", tokens[0])
+	}
+	if got := WithoutStopWords(tokens, nil); !reflect.DeepEqual(got, tokens) {
+		t.Errorf("with no stop words: %q", got)
+	}
+}

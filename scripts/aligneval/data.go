@@ -19,10 +19,13 @@ import (
 type Language struct {
 	Code string
 	// Corpus is input.txt; Tokens[u] are the English tokens of its
-	// utterance u and Gold[u] the reference words.
-	Corpus *segment.Corpus
-	Tokens [][]string
-	Gold   [][]string
+	// utterance u, PriorTokens[u] the same without the stop words (what
+	// the translation prior sees; glosses see Tokens), and Gold[u] the
+	// reference words.
+	Corpus      *segment.Corpus
+	Tokens      [][]string
+	PriorTokens [][]string
+	Gold        [][]string
 	// Reference is gold.txt read with its spaces as boundaries, the
 	// segmentation a perfect learner would find; ReferenceTokens pairs its
 	// utterances with their translations.
@@ -50,7 +53,7 @@ func hasSentenceBreak(line string) bool {
 }
 
 // LoadLanguage reads dir (data/eval/udhr/LANG). stop, if not nil, lists
-// English tokens to drop from the translations.
+// English tokens to drop from the translations the prior sees.
 func LoadLanguage(dir string, stop map[string]bool) (*Language, error) {
 	l := &Language{Code: filepath.Base(dir)}
 	var err error
@@ -62,7 +65,7 @@ func LoadLanguage(dir string, stop map[string]bool) (*Language, error) {
 	if err != nil {
 		return nil, err
 	}
-	tr, err := align.ReadTranslations(f, name, stop)
+	tr, err := align.ReadTranslations(f, name, nil)
 	f.Close()
 	if err != nil {
 		return nil, err
@@ -70,6 +73,7 @@ func LoadLanguage(dir string, stop map[string]bool) (*Language, error) {
 	if l.Tokens, err = tr.Select(l.Corpus.Lines); err != nil {
 		return nil, err
 	}
+	l.PriorTokens = align.WithoutStopWords(l.Tokens, stop)
 	raw, err := os.ReadFile(name)
 	if err != nil {
 		return nil, err

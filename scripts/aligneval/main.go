@@ -177,7 +177,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.IntVar(&o.procs, "procs", runtime.GOMAXPROCS(0), "most chains running at once")
 	fs.IntVar(&o.glossMin, "gloss-min", 5, "judge the glosses of types seen at least this many times")
 	fs.IntVar(&o.minStem, "min-stem", 4, "a spelling without a dictionary entry takes that of its longest prefix of at least this many characters (0: exact entries only)")
-	fs.StringVar(&o.stopWords, "stop-words", "", "English words to drop from the translations, one per line, from `FILE`")
+	fs.StringVar(&o.stopWords, "stop-words", "", "English words to drop from the translations the prior sees (glosses see them all), one per line, from `FILE`")
 	fs.StringVar(&o.out, "out", "", "write the markdown report to `FILE` (atomically) instead of standard output")
 	fs.StringVar(&o.details, "details", "", "write how each type of the gold segmentation's lexicon was judged to `FILE` (TSV)")
 	fs.BoolVar(&o.nuclei, "nuclei", false, "make each language's IPA vowel letters (the units of its corpus that begin with one) syllable nuclei: every word must hold one")
@@ -477,7 +477,7 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	}
 	var opts segment.RunOptions
 	if !s.baseline() {
-		opts.Factor = translationFactor(l.Tokens, cfg, s.Direction, o.nullUnits)
+		opts.Factor = translationFactor(l.PriorTokens, cfg, s.Direction, o.nullUnits)
 	}
 	res, err := segment.Run(ctx, l.Corpus, cfg, nil, opts)
 	if err != nil {
