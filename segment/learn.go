@@ -70,6 +70,14 @@ type Config struct {
 	// TranslationMinCount is the fewest tokens a word needs before its
 	// translation associations count (see align.Model.MinOccurrences).
 	TranslationMinCount int `json:"translation_min_count"`
+	// TranslationLeaveOneOut scores each utterance's translation with the
+	// table estimated without that utterance's own counts (see
+	// align.Model.LeaveOneOut), so a chunk is not rewarded for explaining
+	// the very translation its table row was learned from.
+	TranslationLeaveOneOut bool `json:"translation_leave_one_out"`
+	// TranslationStopWords are translation tokens the factor ignores,
+	// sorted; glosses still see them.
+	TranslationStopWords []string `json:"translation_stop_words,omitempty"`
 	// InitialBoundary is the probability of a boundary at each free gap
 	// in the random first segmentation.
 	InitialBoundary float64 `json:"initial_boundary"`
@@ -102,7 +110,7 @@ type Config struct {
 // DefaultBurnin).
 func DefaultConfig() Config {
 	return Config{Model: "unigram", Base: "uniform", NgramOrder: 3, Sampler: "auto", Proposal: "bigram", MaxWordLength: 24, Iterations: 100, Burnin: DefaultBurnin(100), Chains: 1, Block: 50,
-		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1, Fixed: Fixed{Discount0: true, Discount1: true}, TranslationWeight: 0, TranslationMinCount: 10,
+		Alpha0: 20, Alpha1: 100, WordEnd: 0.5, Rho: 2, InitialBoundary: 0.5, Seed: 1, Fixed: Fixed{Discount0: true, Discount1: true}, TranslationWeight: 0, TranslationMinCount: 10, TranslationLeaveOneOut: true,
 		PhonotacticsBeta: DefaultPhonotacticsBeta}
 }
 

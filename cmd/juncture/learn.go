@@ -108,6 +108,12 @@ func learnConfig(ctx *cli.Context) (segment.Config, error) {
 	cfg.PhonotacticsBeta = ctx.Float64("phonotactics-beta")
 	cfg.TranslationWeight = ctx.Float64("translation-weight")
 	cfg.TranslationMinCount = ctx.Int("translation-min-count")
+	cfg.TranslationLeaveOneOut = ctx.Bool("translation-leave-one-out")
+	stop, err := readStopWords(ctx)
+	if err != nil {
+		return cfg, err
+	}
+	cfg.TranslationStopWords = stop
 	return cfg, cfg.Validate()
 }
 

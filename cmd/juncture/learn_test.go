@@ -103,12 +103,25 @@ func TestLearnResumeAfterKill(t *testing.T) {
 	}
 	in := testCorpus(t, 300)
 	for _, model := range []string{"bigram", "collocation"} {
-		t.Run(model, func(t *testing.T) { killAndResume(t, in, model) })
+		t.Run(model, func(t *testing.T) { killAndResume(t, in, "--model", model) })
 	}
+	// With a translation factor the resumed run must rebuild it from the
+	// state alone: translations, stop words and table settings.
+	dir := t.TempDir()
+	tr, stop := filepath.Join(dir, "tr.txt"), filepath.Join(dir, "stop.txt")
+	var b strings.Builder
+	for _, line := range strings.Split(strings.TrimSpace(string(mustRead(t, in))), "\n") {
+		b.WriteString("the " + strconv.Itoa(len(line)%7) + " and w" + strconv.Itoa(strings.Count(line, "a")) + "\n")
+	}
+	os.WriteFile(tr, []byte(b.String()), 0o644)
+	os.WriteFile(stop, []byte("the\nand\n"), 0o644)
+	t.Run("bigram-translations", func(t *testing.T) {
+		killAndResume(t, in, "--model", "bigram", "--translations", tr, "--translation-weight", "1", "--translation-min-count", "2", "--stop-words", stop)
+	})
 }
 
-func killAndResume(t *testing.T, in, model string) {
-	flags := []string{"--model", model, "--iterations", "60", "--block", "4", "--chains", "2", "--seed", "3"}
+func killAndResume(t *testing.T, in string, model ...string) {
+	flags := append(model, "--iterations", "60", "--block", "4", "--chains", "2", "--seed", "3")
 	ref := t.TempDir()
 	want := run(t, nil, append(append([]string{"learn", "-q", "--state", ref}, flags...), in)...)
 	for _, delay := range []time.Duration{30 * time.Millisecond, 150 * time.Millisecond, 400 * time.Millisecond, 900 * time.Millisecond} {
@@ -183,5 +196,47 @@ func TestLearnLexicon(t *testing.T) {
 	}
 	if sum != total || len(rows)-1 != len(tokens) {
 		t.Errorf("lexicon has %d rows and %d tokens; the output %d types and %d tokens", len(rows)-1, sum, len(tokens), total)
+	}
+}
+
+// TestLearnStopWordsRecorded: the stop words and the table setting are
+// part of the run's settings, so --resume rebuilds the same factor, and
+// the state keeps the whole translations, which the glosses read.
+func TestLearnStopWordsRecorded(t *testing.T) {
+	dir := t.TempDir()
+	in, tr, stop := filepath.Join(dir, "in.txt"), filepath.Join(dir, "tr.txt"), filepath.Join(dir, "stop.txt")
+	var src, eng strings.Builder
+	for i := range 60 {
+		if i%2 == 0 {
+			src.WriteString("kitulesa\n")
+			eng.WriteString("stone of water\n")
+		} else {
+			src.WriteString("lesa\n")
+			eng.WriteString("water\n")
+		}
+	}
+	os.WriteFile(in, []byte(src.String()), 0o644)
+	os.WriteFile(tr, []byte(eng.String()), 0o644)
+	os.WriteFile(stop, []byte("# test\nof\nThe\n"), 0o644)
+	state, lex := filepath.Join(dir, "state"), filepath.Join(dir, "lex.tsv")
+	run(t, nil, "learn", "-q", "--iterations", "20", "--translations", tr, "--translation-weight", "1",
+		"--stop-words", stop, "--state", state, "--lexicon", lex, in)
+	var settings struct {
+		Config struct {
+			StopWords   []string `json:"translation_stop_words"`
+			LeaveOneOut *bool    `json:"translation_leave_one_out"`
+		} `json:"config"`
+	}
+	if err := json.Unmarshal(mustRead(t, filepath.Join(state, "settings.json")), &settings); err != nil {
+		t.Fatal(err)
+	}
+	if got := strings.Join(settings.Config.StopWords, ","); got != "of,the" {
+		t.Errorf("recorded stop words %q, want of,the", got)
+	}
+	if settings.Config.LeaveOneOut == nil {
+		t.Error("translation_leave_one_out not recorded")
+	}
+	if !bytes.Contains(mustRead(t, filepath.Join(state, "translations.txt")), []byte("of")) {
+		t.Error("the state's translations lost the stop words the glosses need")
 	}
 }

@@ -5,7 +5,9 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"maps"
 	"os"
+	"slices"
 	"strings"
 
 	"github.com/juncture-project/juncture/align"
@@ -20,7 +22,8 @@ func translationFlags() []cli.Flag {
 		&cli.StringFlag{Name: "translations", Usage: "free translations, line-aligned with INPUT, from `FILE`: they give the --lexicon its glosses and, with --translation-weight above 0, favour words that recur with the same translation words"},
 		&cli.Float64Flag{Name: "translation-weight", Value: d.TranslationWeight, Usage: "exponent of the translation factor on segmenting; 0 uses translations for glosses only (on the UDHR corpora the factor lowered the unigram model's token F at every weight tried; see README.md)"},
 		&cli.IntFlag{Name: "translation-min-count", Value: d.TranslationMinCount, Usage: "a word's translation associations count only once it has been seen this many times"},
-		&cli.StringFlag{Name: "stop-words", Usage: "translation words to ignore, one per line, from `FILE` (# starts a comment)"},
+		&cli.BoolFlag{Name: "translation-leave-one-out", Value: d.TranslationLeaveOneOut, Usage: "score each line's translation with the table learned from the other lines (--translation-leave-one-out=false: from all lines, the published IBM Model 1 table)"},
+		&cli.StringFlag{Name: "stop-words", Usage: "translation words the translation factor ignores, one per line, from `FILE` (# starts a comment; glosses still see them; data/stopwords/english.txt is one for English)"},
 		&cli.BoolFlag{Name: "tsv", Usage: "INPUT is tab-separated with a header row holding a transcript and a translation column"},
 		&cli.StringFlag{Name: "transcript-column", Value: "transcript", Usage: "with --tsv: the header `NAME` of the transcript column"},
 		&cli.StringFlag{Name: "translation-column", Value: "translation", Usage: "with --tsv: the header `NAME` of the translation column"},
@@ -62,18 +65,6 @@ func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
 	if err != nil {
 		return nil, nil, err
 	}
-	var stop map[string]bool
-	if name := ctx.String("stop-words"); name != "" {
-		f, err := os.Open(name)
-		if err != nil {
-			return nil, nil, err
-		}
-		stop, err = align.ReadStopWords(f, name)
-		f.Close()
-		if err != nil {
-			return nil, nil, err
-		}
-	}
 	r, name, err := openInput(input)
 	if err != nil {
 		return nil, nil, err
@@ -83,7 +74,7 @@ func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
 		if ctx.IsSet("translations") {
 			return nil, nil, errors.New("--tsv takes the translations from INPUT; drop --translations")
 		}
-		return readTSV(r, name, opts, stop, align.TSVColumns{
+		return readTSV(r, name, opts, align.TSVColumns{
 			Transcript: ctx.String("transcript-column"), Translation: ctx.String("translation-column")})
 	}
 	lc := &lineCounter{r: r}
@@ -103,7 +94,7 @@ func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
 		return nil, nil, err
 	}
 	defer f.Close()
-	tr, err := align.ReadTranslations(f, tname, stop)
+	tr, err := align.ReadTranslations(f, tname, nil)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -116,8 +107,8 @@ func readInput(ctx *cli.Context) (*segment.Corpus, [][]string, error) {
 }
 
 // readTSV reads transcripts and translations from one tab-separated file.
-func readTSV(r io.Reader, name string, opts segment.ReadOptions, stop map[string]bool, cols align.TSVColumns) (*segment.Corpus, [][]string, error) {
-	bt, err := align.ReadTSV(r, name, cols, stop)
+func readTSV(r io.Reader, name string, opts segment.ReadOptions, cols align.TSVColumns) (*segment.Corpus, [][]string, error) {
+	bt, err := align.ReadTSV(r, name, cols, nil)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -142,14 +133,42 @@ func readTSV(r io.Reader, name string, opts segment.ReadOptions, stop map[string
 	return c, tokens, nil
 }
 
-// translationFactor returns the factor builder of the translation prior.
-// The table is re-estimated by 10 EM iterations from the segmentation at
-// the start of every block, with smoothing beta = 1.
+// readStopWords returns the sorted words of the --stop-words file, nil
+// without one.
+func readStopWords(ctx *cli.Context) ([]string, error) {
+	name := ctx.String("stop-words")
+	if name == "" {
+		return nil, nil
+	}
+	f, err := os.Open(name)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	stop, err := align.ReadStopWords(f, name)
+	if err != nil {
+		return nil, err
+	}
+	return slices.Sorted(maps.Keys(stop)), nil
+}
+
+// translationFactor returns the factor builder of the translation prior
+// for translation tokens (all of them: the stop words of cfg are dropped
+// here). The table is re-estimated by 10 EM iterations from the
+// segmentation at the start of every block, with smoothing beta = 1.
 func translationFactor(tokens [][]string, cfg segment.Config) segment.FactorBuilder {
 	if tokens == nil || cfg.TranslationWeight == 0 {
 		return nil // glosses only: the factor would multiply by 1
 	}
+	if len(cfg.TranslationStopWords) > 0 {
+		stop := make(map[string]bool, len(cfg.TranslationStopWords))
+		for _, w := range cfg.TranslationStopWords {
+			stop[w] = true
+		}
+		tokens = align.WithoutStopWords(tokens, stop)
+	}
+	o := align.FactorOptions{Beta: 1, Iterations: 10, MinOccurrences: cfg.TranslationMinCount, LeaveOneOut: cfg.TranslationLeaveOneOut}
 	return func(words [][]int32, _ func(int32) int) segment.UtteranceFactor {
-		return align.NewFactor(tokens, 1, words, 10, cfg.TranslationMinCount)
+		return align.NewFactorWith(tokens, words, o)
 	}
 }
