@@ -71,6 +71,7 @@ type options struct {
 	weights            []float64
 	minCounts          []int
 	iterations, chains int
+	block              int
 	procs              int
 	glossMin, minStem  int
 	nullUnits          float64
@@ -125,6 +126,9 @@ func (s Setting) config(o *options, seed uint64) segment.Config {
 	cfg.Sampler = s.Sampler
 	cfg.Iterations = o.iterations
 	cfg.Burnin = o.iterations * 4 / 5
+	if o.block > 0 {
+		cfg.Block = o.block
+	}
 	cfg.Chains = o.chains
 	cfg.Seed = seed
 	cfg.TranslationWeight = s.Weight
@@ -173,6 +177,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.StringVar(&dirs, "direction", "forward", "translation factors, comma-separated: forward (P(translation | words)), reverse (P(words | translation)), ratio (reverse over the words' background) both (forward times reverse), units (forward, a token aligned to a unit), loo (forward, each utterance scored without its own counts) or units-loo")
 	fs.Float64Var(&o.nullUnits, "null-units", 1, "with -direction units or units-loo: NULL's size in units")
 	fs.IntVar(&o.iterations, "iterations", 300, "sweeps per chain")
+	fs.IntVar(&o.block, "block", 0, "sweeps between re-estimations of the translation table (0: learn's default)")
 	fs.IntVar(&o.chains, "chains", d.Chains, "chains per run")
 	fs.IntVar(&o.procs, "procs", runtime.GOMAXPROCS(0), "most chains running at once")
 	fs.IntVar(&o.glossMin, "gloss-min", 5, "judge the glosses of types seen at least this many times")
