@@ -44,3 +44,26 @@ func ExampleModel() {
 	// log P(the house | das Haus) = -1.823
 	// joining into dasHaus changes it by -0.950
 }
+
+// With LeaveOneOut each utterance is scored with the table learned from
+// the others. "Kuh" occurs once: the full table lets it explain its own
+// "cow", the cross-validated one knows nothing of it, while a pair seen
+// elsewhere loses little.
+func ExampleModel_leaveOneOut() {
+	translations, err := align.ReadTranslations(strings.NewReader(
+		"the house\nthe book\na book\na house\nthe cow\n"), "en.txt", nil)
+	if err != nil {
+		panic(err)
+	}
+	words := [][]int32{{0, 1}, {0, 2}, {3, 2}, {3, 1}, {0, 4}} // ..., das Kuh
+	for _, loo := range []bool{false, true} {
+		m := align.NewModel(translations.Tokens, 0.1)
+		m.LeaveOneOut = loo
+		m.Estimate(words, 20)
+		fmt.Printf("leave-one-out %v: log P(the cow | das Kuh) = %.3f, log P(the house | das Haus) = %.3f\n",
+			loo, m.LogProb(4, words[4]), m.LogProb(0, words[0]))
+	}
+	// Output:
+	// leave-one-out false: log P(the cow | das Kuh) = -1.836, log P(the house | das Haus) = -1.674
+	// leave-one-out true: log P(the cow | das Kuh) = -3.835, log P(the house | das Haus) = -1.796
+}
