@@ -62,10 +62,11 @@ type Config struct {
 	// TranslationWeight is the exponent of the translation factor, when
 	// the run has one (RunOptions.Factor). The default, 0, leaves
 	// segmenting to the word model: on the five UDHR corpora (3 seeds,
-	// 300 sweeps, English stop words, leave-one-out table) weight 1
-	// raised the bigram model's mean token F by 0.020 but lowered the
-	// unigram model's, and left the bigram model with the syllable-skeleton
-	// base, the best of them, where it was (-0.002; +0.007 at weight 0.5).
+	// 300 sweeps, leave-one-out table, with or without English stop
+	// words) weight 1 raised the bigram model's mean token F by 0.020 but
+	// lowered the unigram model's, and left the bigram model with the
+	// syllable-skeleton base, the best of them, where it was (-0.002;
+	// +0.007 at weight 0.5).
 	TranslationWeight float64 `json:"translation_weight"`
 	// TranslationMinCount is the fewest tokens a word needs before its
 	// translation associations count (see align.Model.MinOccurrences).

@@ -20,7 +20,7 @@ func translationFlags() []cli.Flag {
 	d := segment.DefaultConfig()
 	return []cli.Flag{
 		&cli.StringFlag{Name: "translations", Usage: "free translations, line-aligned with INPUT, from `FILE`: they give the --lexicon its glosses and, with --translation-weight above 0, favour words that recur with the same translation words"},
-		&cli.Float64Flag{Name: "translation-weight", Value: d.TranslationWeight, Usage: "exponent of the translation factor on segmenting; 0 uses translations for glosses only (on the UDHR corpora weight 1 with --stop-words raised the bigram model's token F by 0.02 and lowered the unigram model's; see README.md)"},
+		&cli.Float64Flag{Name: "translation-weight", Value: d.TranslationWeight, Usage: "exponent of the translation factor on segmenting; 0 uses translations for glosses only (on the UDHR corpora weight 1 raised the bigram model's token F by 0.02 and lowered the unigram model's; see README.md)"},
 		&cli.IntFlag{Name: "translation-min-count", Value: d.TranslationMinCount, Usage: "a word's translation associations count only once it has been seen this many times"},
 		&cli.BoolFlag{Name: "translation-leave-one-out", Value: d.TranslationLeaveOneOut, Usage: "score each line's translation with the table learned from the other lines (--translation-leave-one-out=false: from all lines, the published IBM Model 1 table)"},
 		&cli.StringFlag{Name: "stop-words", Usage: "translation words the translation factor ignores, one per line, from `FILE` (# starts a comment; glosses still see them; data/stopwords/english.txt is one for English)"},
