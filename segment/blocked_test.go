@@ -32,6 +32,7 @@ func TestBlockedExactPosterior(t *testing.T) {
 	}
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, tc.lines...)
 			if i%2 == 1 {
 				c.IndexSpans(3) // the index for short spans, hashing for longer ones

@@ -27,6 +27,7 @@ func TestCollocationExactPosterior(t *testing.T) {
 	}
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, tc.lines...)
 			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
 			m := NewCollocations(c, tc.word, tc.group, base, tc.groupEnd)

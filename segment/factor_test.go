@@ -61,6 +61,7 @@ func TestTranslationFactorExactPosterior(t *testing.T) {
 		{"forward", 1, "boundary", 2, 0, false, true, true},
 	} {
 		t.Run(fmt.Sprint(tc.direction, i), func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, lines...)
 			base := UniformBase{WordEnd: 0.5, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, PitmanYor{0.2, 2}, PitmanYor{0.1, 3}, base)

@@ -115,6 +115,7 @@ func TestNgramBaseExactPosterior(t *testing.T) {
 	}
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, tc.lines...)
 			base := NewNgramBase(len(c.Inventory), len(tc.levels), tc.levels)
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
@@ -134,6 +135,7 @@ func TestNgramBaseEmptiesAfterSampling(t *testing.T) {
 	for _, order := range []int{1, 2} {
 		for _, unitOrder := range []int{1, 3} {
 			t.Run(fmt.Sprintf("words%d/units%d", order, unitOrder), func(t *testing.T) {
+				t.Parallel() // own corpus and random source
 				b := NewNgramBase(len(c.Inventory), unitOrder, nil)
 				m := NewWords(c, order, PitmanYor{0.5, 1}, PitmanYor{0.5, 1}, b)
 				rng := rand.New(rand.NewPCG(uint64(order), uint64(unitOrder)))

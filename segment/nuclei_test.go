@@ -119,6 +119,7 @@ func checkRestrictedExact(t *testing.T, kinds []string, seed uint64, base func(*
 	lines := []string{"bataba", "taba", "ab"}
 	for _, kind := range kinds {
 		t.Run(kind, func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, lines...)
 			nuc, err := NewNuclei(c, []string{"a"})
 			if err != nil {

@@ -91,6 +91,7 @@ func TestWordsGibbsExactPosterior(t *testing.T) {
 	}
 	for i, tc := range cases {
 		t.Run(fmt.Sprint(i), func(t *testing.T) {
+			t.Parallel() // own corpus and random source
 			c := tinyCorpus(t, tc.lines...)
 			base := UniformBase{WordEnd: tc.wordEnd, Units: len(c.Inventory)}
 			m := NewWords(c, tc.order, tc.uni, tc.bi, base)
