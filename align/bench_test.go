@@ -60,29 +60,24 @@ func benchMoves(m *Model, words [][]int32, n int, join bool) []move {
 	return ms
 }
 
-func BenchmarkSplitDelta(b *testing.B) {
-	tables(b, func(b *testing.B, loo bool) {
-		m, words, s := benchCorpus(b, loo)
-		ms := benchMoves(m, words, 4096, false)
-		b.ReportAllocs()
-		sink := 0.0
-		for i := 0; b.Loop(); i++ {
-			mv := &ms[i%len(ms)]
-			sink += s.SplitDelta(mv.u, mv.w, mv.w1, mv.w2)
-		}
-		_ = sink
-	})
-}
+func BenchmarkSplitDelta(b *testing.B) { benchDelta(b, false) }
 
-func BenchmarkJoinDelta(b *testing.B) {
+func BenchmarkJoinDelta(b *testing.B) { benchDelta(b, true) }
+
+// benchDelta measures SplitDelta, or JoinDelta with join, on random moves.
+func benchDelta(b *testing.B, join bool) {
 	tables(b, func(b *testing.B, loo bool) {
 		m, words, s := benchCorpus(b, loo)
-		ms := benchMoves(m, words, 4096, true)
+		ms := benchMoves(m, words, 4096, join)
 		b.ReportAllocs()
 		sink := 0.0
 		for i := 0; b.Loop(); i++ {
 			mv := &ms[i%len(ms)]
-			sink += s.JoinDelta(mv.u, mv.w1, mv.w2, mv.w)
+			if join {
+				sink += s.JoinDelta(mv.u, mv.w1, mv.w2, mv.w)
+			} else {
+				sink += s.SplitDelta(mv.u, mv.w, mv.w1, mv.w2)
+			}
 		}
 		_ = sink
 	})
