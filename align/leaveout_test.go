@@ -52,12 +52,7 @@ func TestLeaveOneOutCountsAddUp(t *testing.T) {
 					sum += ownCount(m, u, w, e)
 				}
 			}
-			var n float64
-			if w == Null {
-				n = m.null[e]
-			} else {
-				n = m.pair[pairKey(w, e)]
-			}
+			n := m.Count(e, w)
 			if math.Abs(sum-n) > 1e-9*max(1, n) {
 				t.Fatalf("word %d token %d: own counts sum to %.12g, table has %.12g", w, e, sum, n)
 			}

@@ -179,6 +179,14 @@ func (m *Model) Count(e, w int32) float64 {
 	if int(w)+1 >= len(m.total) {
 		return 0
 	}
+	return m.count(w, e)
+}
+
+// count returns n(e,w) for a word w the table has a column for, or Null.
+func (m *Model) count(w, e int32) float64 {
+	if w == Null {
+		return m.null[e]
+	}
 	return m.pair[pairKey(w, e)]
 }
 
@@ -323,14 +331,7 @@ func (m *Model) weighted(c column, e int32, j int) float64 {
 // probOut returns t(e|w) for w's column c without the count own of
 // n(e,w).
 func (m *Model) probOut(c column, e int32, own float64) float64 {
-	p := m.prior[e]
-	var n float64
-	if c.w == Null {
-		n = m.null[e]
-	} else {
-		n = m.pair[pairKey(c.w, e)]
-	}
-	return (max(n-own, 0) + m.Beta*p) / c.denom
+	return (max(m.count(c.w, e)-own, 0) + m.Beta*m.prior[e]) / c.denom
 }
 
 // probIn returns t(e|w) for w's column c.
@@ -339,13 +340,7 @@ func (m *Model) probIn(c column, e int32) float64 {
 	if !c.seen {
 		return p
 	}
-	var n float64
-	if c.w == Null {
-		n = m.null[e]
-	} else {
-		n = m.pair[pairKey(c.w, e)]
-	}
-	return (n + m.Beta*p) / c.denom
+	return (m.count(c.w, e) + m.Beta*p) / c.denom
 }
 
 // pairKey returns the key of n(e,w) for a word w >= 0.
