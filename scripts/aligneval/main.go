@@ -78,6 +78,7 @@ type options struct {
 	glossesOnly        bool
 	nuclei, pitmanYor  bool
 	phonotactics       bool
+	contrast           bool
 	commandLine        string
 }
 
@@ -142,6 +143,8 @@ func (s Setting) config(o *options, seed uint64) segment.Config {
 type Outcome struct {
 	Scores score.Scores
 	Gloss  GlossCounts
+	// Contrast is set with -contrast.
+	Contrast Contrast
 }
 
 func main() {
@@ -188,6 +191,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.BoolVar(&o.nuclei, "nuclei", false, "make each language's IPA vowel letters (the units of its corpus that begin with one) syllable nuclei: every word must hold one")
 	fs.BoolVar(&o.pitmanYor, "pitman-yor", false, "sample Pitman-Yor discounts instead of fixing them at 0")
 	fs.BoolVar(&o.phonotactics, "phonotactics", false, "with -nuclei: the syllable-skeleton base whose word edges are learned from utterance edges")
+	fs.BoolVar(&o.contrast, "contrast", false, "also report how each run's word model and translation likelihood rate the gold segmentation against the learned one")
 	fs.BoolVar(&o.glossesOnly, "glosses-only", false, "judge the glosses of the gold segmentation only; learn nothing")
 	fs.Usage = func() {
 		fmt.Fprintf(fs.Output(), "usage: aligneval [flags]\n\nLearns each UDHR corpus with and without the translation prior and writes a markdown report.\n\n")
@@ -496,8 +500,11 @@ func runOne(ctx context.Context, o *options, s Setting, l *Language, j *Judge, s
 	if err != nil {
 		return Outcome{}, err
 	}
-	g := EvalGlosses(res.Decoded, res.Posterior, l.Tokens, l.Spellings, j, o.glossMin, nil)
-	return Outcome{Scores: sc, Gloss: g}, nil
+	out := Outcome{Scores: sc, Gloss: EvalGlosses(res.Decoded, res.Posterior, l.Tokens, l.Spellings, j, o.glossMin, nil)}
+	if o.contrast {
+		out.Contrast = contrast(l, cfg, res.Chains[0].Hyper, res.Decoded, seed)
+	}
+	return out, nil
 }
 
 // translationFactor builds the translation factor of the direction. The

@@ -39,6 +39,12 @@ func (s Summary) format(signed bool) string {
 	if signed {
 		f = "%+.3f"
 	}
+	return s.formatWith(f)
+}
+
+// formatWith writes s as "mean [min, max]" with the verb f for each
+// number (the mean alone for one value).
+func (s Summary) formatWith(f string) string {
 	if s.N <= 1 {
 		return fmt.Sprintf(f, s.Mean)
 	}
@@ -151,6 +157,9 @@ func (r *Report) WriteMarkdown(w io.Writer) error {
 		}
 		p("\n")
 		r.writeSegmentation(bw)
+		if o.contrast {
+			r.writeContrast(bw)
+		}
 	} else {
 		p(": glosses of the gold segmentation only.\n\n")
 	}
