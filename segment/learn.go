@@ -63,10 +63,12 @@ type Config struct {
 	// the run has one (RunOptions.Factor). The default, 0, leaves
 	// segmenting to the word model: on the five UDHR corpora (3 seeds,
 	// 300 sweeps, leave-one-out table, with or without English stop
-	// words) weight 1 raised the bigram model's mean token F by 0.020 but
-	// lowered the unigram model's, and left the bigram model with the
+	// words) weight 1 raised the bigram model's mean token F by 0.020
+	// (after 1000 sweeps by 0.005, weight 2 by 0.020) but lowered the
+	// unigram model's, and left the bigram model with the
 	// syllable-skeleton base, the best of them, where it was (-0.002;
-	// +0.007 at weight 0.5).
+	// +0.007 at weight 0.5), whose learned segmentations the
+	// translations already explain better than the reference does.
 	TranslationWeight float64 `json:"translation_weight"`
 	// TranslationMinCount is the fewest tokens a word needs before its
 	// translation associations count (see align.Model.MinOccurrences).
