@@ -79,6 +79,7 @@ type options struct {
 	nuclei, pitmanYor  bool
 	phonotactics       bool
 	contrast           bool
+	mismatch           bool
 	commandLine        string
 }
 
@@ -191,6 +192,7 @@ func parseFlags(args []string) (*options, error) {
 	fs.BoolVar(&o.nuclei, "nuclei", false, "make each language's IPA vowel letters (the units of its corpus that begin with one) syllable nuclei: every word must hold one")
 	fs.BoolVar(&o.pitmanYor, "pitman-yor", false, "sample Pitman-Yor discounts instead of fixing them at 0")
 	fs.BoolVar(&o.phonotactics, "phonotactics", false, "with -nuclei: the syllable-skeleton base whose word edges are learned from utterance edges")
+	fs.BoolVar(&o.mismatch, "mismatch", false, "a control: the prior sees each line with the translation of the line half the corpus away (glosses keep the right ones)")
 	fs.BoolVar(&o.contrast, "contrast", false, "also report how each run's word model and translation likelihood rate the gold segmentation against the learned one")
 	fs.BoolVar(&o.glossesOnly, "glosses-only", false, "judge the glosses of the gold segmentation only; learn nothing")
 	fs.Usage = func() {
@@ -363,6 +365,9 @@ func buildReport(ctx context.Context, o *options) (*Report, error) {
 		l, err := LoadLanguage(filepath.Join(o.dataDir, code), stop)
 		if err != nil {
 			return nil, err
+		}
+		if o.mismatch {
+			l.PriorTokens = mismatched(l.PriorTokens)
 		}
 		j, used, err := LoadJudge(o.dictDir, o.dictSet, code, o.minStem)
 		if err != nil {
@@ -577,6 +582,20 @@ func ipaVowels(c *segment.Corpus) []string {
 		if r, _ := utf8.DecodeRuneInString(u); strings.ContainsRune(ipaVowelLetters, r) {
 			out = append(out, u)
 		}
+	}
+	return out
+}
+
+// mismatched returns the translations rotated by half their number, so
+// that no line of more than one keeps its own: with them the prior keeps
+// its form (the same tokens, the same lengths, the same table sizes) but
+// says nothing true about any line, which separates what a factor gains
+// from the translations' content from what it gains from its shape alone.
+func mismatched(tokens [][]string) [][]string {
+	n := len(tokens)
+	out := make([][]string, n)
+	for u := range tokens {
+		out[u] = tokens[(u+n/2)%n]
 	}
 	return out
 }

@@ -7,6 +7,7 @@ import (
 	"math/rand/v2"
 	"reflect"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -180,6 +181,28 @@ func TestIPAVowels(t *testing.T) {
 	for _, u := range got {
 		if !want[u] {
 			t.Errorf("ipaVowels gave %q, not a vowel unit", u)
+		}
+	}
+}
+
+// TestMismatched: every line of more than one gets another line's
+// translation, and every translation is used once.
+func TestMismatched(t *testing.T) {
+	for n := 2; n <= 7; n++ {
+		tokens := make([][]string, n)
+		for u := range tokens {
+			tokens[u] = []string{strconv.Itoa(u)}
+		}
+		got := mismatched(tokens)
+		seen := map[string]bool{}
+		for u, ts := range got {
+			if ts[0] == strconv.Itoa(u) {
+				t.Errorf("n=%d: line %d keeps its own translation", n, u)
+			}
+			seen[ts[0]] = true
+		}
+		if len(seen) != n {
+			t.Errorf("n=%d: %d distinct translations used", n, len(seen))
 		}
 	}
 }

@@ -151,6 +151,10 @@ func (r *Report) WriteMarkdown(w io.Writer) error {
 		p("Each cell is the mean over seeds with [minimum, maximum]. A Δ column is the setting minus the run\n")
 		p("without the prior with the same model, sampler and seed. The row \"all\" takes, for each seed, the\n")
 		p("mean of the languages (glosses: the counts pooled over languages).\n\n")
+		if o.mismatch {
+			p("**Control (-mismatch):** the prior sees each line paired with the translation of the line half the\n")
+			p("corpus away, so it keeps its form but says nothing true about any line; glosses use the right ones.\n\n")
+		}
 		p("Translation units (one paragraph per line):\n\n")
 		for l, code := range r.Langs {
 			p("- %s: %s\n", code, r.Units[l])
