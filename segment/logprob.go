@@ -14,8 +14,8 @@ import (
 // over draws, of the product of every token's predictive probability as
 // the words of s are seated afresh in corpus order, each token's seat drawn
 // given the tokens before it. Each product is an unbiased estimate of P(s)
-// (sequential importance sampling with the predictive seating as proposal,
-// a standard construction; common practice), so their mean is too, and its
+// (sequential importance sampling with the predictive seating as
+// proposal; common practice), so their mean is too, and its
 // log errs low by no more than the spread of the products. For the
 // Dirichlet-process unigram model with a uniform base no predictive
 // depends on the seating and the estimate is exact.
@@ -33,20 +33,8 @@ func LogProbEstimate(s *Segmentation, cfg Config, h Hyper, draws int, rng *rand.
 	lps := make([]float64, draws)
 	for d := range lps {
 		m := newModel(s.Corpus, cfg, h)
-		lp, tokens := 0.0, 0
-		for u := 0; u < s.Corpus.Len(); u++ {
-			prev := End
-			s.Words(u, func(a, b int) {
-				w := m.Intern(a, b)
-				lp += m.add(prev, w, rng, nil)
-				prev = w
-				tokens++
-			})
-			if m.Order == 2 {
-				lp += m.add(prev, End, rng, nil)
-			}
-		}
-		lps[d] = lp + m.logEnds(tokens)
+		lps[d] = m.AddSegmentation(s, rng)
+		lps[d] += m.logEnds(m.tokens)
 	}
 	return floats.LogSumExp(lps) - math.Log(float64(draws))
 }

@@ -280,20 +280,23 @@ func (m *Words) logEnds(n int) float64 {
 	return lbeta(U+h, float64(n)-U+h) - lbeta(h, h)
 }
 
-// AddSegmentation seats every word of s, in corpus order. m must hold no
-// other words of the same utterances.
-func (m *Words) AddSegmentation(s *Segmentation, rng *rand.Rand) {
+// AddSegmentation seats every word of s, in corpus order, and returns
+// the sum of their log predictive probabilities as they were seated (see
+// add). m must hold no other words of the same utterances.
+func (m *Words) AddSegmentation(s *Segmentation, rng *rand.Rand) float64 {
+	lp := 0.0
 	for u := 0; u < m.Corpus.Len(); u++ {
 		prev := End
 		s.Words(u, func(a, b int) {
 			w := m.Intern(a, b)
-			m.add(prev, w, rng, nil)
+			lp += m.add(prev, w, rng, nil)
 			prev = w
 		})
 		if m.Order == 2 {
-			m.add(prev, End, rng, nil)
+			lp += m.add(prev, End, rng, nil)
 		}
 	}
+	return lp
 }
 
 // RemoveSegmentation takes away every word of s, in reverse corpus order;

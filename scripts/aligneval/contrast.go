@@ -9,27 +9,25 @@ import (
 )
 
 // contrastDraws is the number of seatings segment.LogProbEstimate
-// averages over for each segmentation.
-const contrastDraws = 10
+// averages over for each segmentation, and contrastRounds the number of
+// hyperparameter resamplings that fit them to the gold segmentation.
+const (
+	contrastDraws  = 10
+	contrastRounds = 200
+)
 
 // Contrast is how one run's model rates the gold segmentation against the
-// one it learned (decoded): Words is log P(gold) - log P(learned) under the
+// one it learned (decoded). Words is log P(gold) - log P(learned) under the
 // word model with the chain's final hyperparameters
-// (segment.LogProbEstimate), Translation the same difference for the
-// translations, each scored with the leave-one-out table its own
-// segmentation gives (10 EM iterations, beta 1), as the factor sees a
-// segmentation at the start of a block. A prior of weight w prefers gold
-// when Words + w Translation > 0.
-// WordsRefit is Words with the gold segmentation rated under
-// hyperparameters fitted to it (segment.FitHyper, contrastRounds rounds
-// from the chain's), the learned one under the chain's.
+// (segment.LogProbEstimate); WordsRefit the same with gold rated under
+// hyperparameters fitted to it (segment.FitHyper, from the chain's).
+// Translation is the same difference for the translations, each
+// segmentation scored with the leave-one-out table it gives (10 EM
+// iterations, beta 1), as the factor sees a segmentation at the start of
+// a block. A prior of weight w prefers gold when Words + w Translation > 0.
 type Contrast struct {
 	Words, WordsRefit, Translation float64
 }
-
-// contrastRounds is the number of hyperparameter resamplings that fit
-// them to the gold segmentation.
-const contrastRounds = 200
 
 // contrast returns the Contrast of a run of cfg on l that learned
 // learned, with hyperparameters h.
